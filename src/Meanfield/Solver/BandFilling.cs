@@ -1,0 +1,93 @@
+namespace Meanfield.Solver;
+
+/// <summary>
+/// The result of filling a <see cref="StateTable"/> with N_e electrons per cell at temperature T: the chemical potential
+/// mu, the band grand potential Omega_band = -T sum_n Avg_k ln(1 + e^{-(E - mu)/T}) per cell, and the thermal averages
+/// n_f,g = sum f(E - mu) w_g and dOmega/dr_g = sum f(E - mu) dE/dr_g (energy unit, per cell).
+/// </summary>
+public sealed record BandFilling(double Mu, double GrandPotential, double[] FOccupation, double[] GrandPotentialSlope,
+                                 FermiLevelStatus Status)
+{
+    /// <summary>
+    /// Finds mu with N(mu) = N_e: at T &gt; 0 by safeguarded Newton inside a bracket (N(mu) is monotone); at T = 0 by
+    /// ordering the states and placing mu midway between the last occupied and the first empty one.
+    /// </summary>
+    public static BandFilling Compute(StateTable table, double electrons, double temperature)
+    {
+        double mu = temperature > 0 ? SolveMuThermal(table, electrons, temperature) : 0;
+        int partial = -1; double fraction = 0;
+        var status = FermiLevelStatus.Regular;
+        if (temperature <= 0) (mu, partial, fraction, status) = SolveMuGround(table, electrons);
+
+        int g = table.Groups;
+        var nf = new double[g]; var slope = new double[g];
+        double omega = 0;
+        for (int s = 0; s < table.Count; s++)
+        {
+            double x = table.Energy[s] - mu;
+            double f = s == partial ? fraction : Numerics.FermiDirac.Occupation(x, temperature);
+            double w = table.Weight[s];
+            omega += w * (s == partial ? fraction * x : Numerics.FermiDirac.GrandPotential(x, temperature));
+            if (f == 0) continue;
+            double wf = w * f;
+            int b = s * g;
+            for (int q = 0; q < g; q++) { nf[q] += wf * table.FWeight[b + q]; slope[q] += wf * table.EnergySlope[b + q]; }
+        }
+        return new BandFilling(mu, omega, nf, slope, status);
+    }
+
+    private static double SolveMuThermal(StateTable table, double electrons, double t)
+    {
+        double lo = double.PositiveInfinity, hi = double.NegativeInfinity;
+        foreach (var e in table.Energy) { lo = Math.Min(lo, e); hi = Math.Max(hi, e); }
+        lo -= 50 * t + 1e-9; hi += 50 * t + 1e-9;
+        double mu = 0.5 * (lo + hi);
+        double tolerance = 1e-13 * Math.Max(1.0, electrons);
+        for (int it = 0; it < 200; it++)
+        {
+            double n = 0, dn = 0;
+            for (int s = 0; s < table.Count; s++)
+            {
+                double x = table.Energy[s] - mu, w = table.Weight[s];
+                n += w * Numerics.FermiDirac.Occupation(x, t);
+                dn += w * Numerics.FermiDirac.NegativeDerivative(x, t);
+            }
+            double r = n - electrons;
+            if (Math.Abs(r) < tolerance) return mu;
+            if (r > 0) hi = mu; else lo = mu;
+            double next = dn > 0 ? mu - r / dn : double.NaN;
+            mu = next > lo && next < hi ? next : 0.5 * (lo + hi);
+            if (hi - lo < 1e-15 * Math.Max(1.0, Math.Abs(mu))) return mu;
+        }
+        return mu;
+    }
+
+    private static (double mu, int partial, double fraction, FermiLevelStatus status) SolveMuGround(StateTable table, double electrons)
+    {
+        var order = new int[table.Count];
+        for (int i = 0; i < order.Length; i++) order[i] = i;
+        var keys = (double[])table.Energy.Clone();
+        Array.Sort(keys, order);
+        double spread = keys[^1] - keys[0] + 1e-300;
+        double cumulative = 0, tolerance = 1e-10 * Math.Max(1.0, electrons);
+        if (electrons <= tolerance) return (keys[0] - 1e-9 * spread, -1, 0, FermiLevelStatus.Regular);
+        for (int i = 0; i < order.Length; i++)
+        {
+            double w = table.Weight[order[i]];
+            if (cumulative + w < electrons - tolerance) { cumulative += w; continue; }
+            if (cumulative + w <= electrons + tolerance)
+            {
+                if (i + 1 == order.Length) return (keys[i] + 1e-9 * spread, -1, 0, FermiLevelStatus.Regular);
+                double gap = keys[i + 1] - keys[i];
+                var status = gap < 1e-9 * spread
+                    ? FermiLevelStatus.DegenerateAtFermiLevel
+                    : table.UniformWeights && gap < 1e-3 * spread ? FermiLevelStatus.InsideBand : FermiLevelStatus.Regular;
+                return (0.5 * (keys[i] + keys[i + 1]), -1, 0, status);
+            }
+            // The Fermi level cuts this state: occupy it partially (a quadrature node of a continuous band).
+            double fraction = (electrons - cumulative) / w;
+            return (keys[i], order[i], fraction, table.UniformWeights ? FermiLevelStatus.InsideBand : FermiLevelStatus.Regular);
+        }
+        throw new ArgumentException($"{electrons} electrons per cell exceed the {table.TotalWeight():G6} states sampled");
+    }
+}

@@ -1,0 +1,34 @@
+using Meanfield.Renormalization;
+
+namespace Meanfield.Solver;
+
+/// <summary>
+/// A solution of the infinite-U auxiliary-boson saddle point (or the best attempt, with <see cref="Converged"/> false).
+/// Energies in the model's energy unit, per unit cell.
+/// </summary>
+public sealed record SaddlePoint
+{
+    public required bool Converged { get; init; }
+    public required int Iterations { get; init; }
+    /// <summary>Largest residual of the saddle-point equations at the returned point.</summary>
+    public required double ResidualNorm { get; init; }
+    public required double Temperature { get; init; }
+    /// <summary>Chemical potential mu (energy unit).</summary>
+    public required double Mu { get; init; }
+    /// <summary>F = Omega_band + sum_s lambda_s (r_s^2 - Q) + mu N_e per cell (energy unit).</summary>
+    public required double FreeEnergy { get; init; }
+    public required double ElectronsPerCell { get; init; }
+    public required SaddlePointBranch Branch { get; init; }
+    public required IReadOnlyList<ShellGroupSolution> Groups { get; init; }
+    public required MeanFieldAmplitudes Amplitudes { get; init; }
+    /// <summary>Free energy of the decoupled (r = 0) solution at the same T, when it exists; null otherwise.</summary>
+    public double? DecoupledFreeEnergy { get; init; }
+    public required FermiLevelStatus FermiLevel { get; init; }
+    /// <summary>How the zone was sampled (mesh or DOS quadrature) and how occupations were smeared.</summary>
+    public required string Sampling { get; init; }
+    /// <summary>Plain-language notes for the user: why it did not converge and what to try, or caveats.</summary>
+    public IReadOnlyList<string> Notes { get; init; } = [];
+    public double WallSeconds { get; init; }
+    /// <summary>Number of full passes over the zone (each a diagonalisation of every k-point).</summary>
+    public int ZonePasses { get; init; }
+}

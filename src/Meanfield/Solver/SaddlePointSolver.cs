@@ -1,0 +1,319 @@
+using System.Diagnostics;
+using Meanfield.Binding;
+using Meanfield.Bloch;
+using Meanfield.Lattices;
+using Meanfield.Renormalization;
+
+namespace Meanfield.Solver;
+
+/// <summary>
+/// Solves the infinite-U auxiliary-boson saddle point (Newns &amp; Read, Adv. Phys. 36, 799 (1987); Hewson, The Kondo
+/// Problem to Heavy Fermions (1993), ch. 7): for every shell group g,
+///   n_f,g + r_g^2 = Q                  (constraint, dF/dlambda_g = 0)
+///   &lt;dH_MF/dr_g&gt; + 2 lambda_g r_g = 0  (dF/dr_g = 0, Hellmann-Feynman)
+/// per shell, with mu fixed by the electron count at every evaluation (<see cref="BandFilling"/>). The 2G unknowns
+/// (r, lambda) are iterated by Broyden's method (Broyden, Math. Comp. 19, 577 (1965)) from a finite-difference
+/// Jacobian, with a backtracking line search; the Jacobian is rebuilt when a step fails.
+/// </summary>
+public sealed class SaddlePointSolver
+{
+    private readonly BoundModel _model;
+    private readonly SolverSettings _settings;
+    private readonly IStateSum _sum;
+    private readonly GroupInfo[] _groups;
+    private int _passes;
+
+    private sealed record GroupInfo(string Name, int Shells, double Q, double Level, int Degeneracy);
+
+    public BlochHamiltonian Bare { get; }
+    public IStateSum StateSum => _sum;
+
+    public SaddlePointSolver(BoundModel model, SolverSettings settings)
+    {
+        settings.Validate();
+        _model = model; _settings = settings;
+        Bare = new BlochHamiltonian(model);
+        if (model.Shells.Count == 0) throw new ArgumentException("the model has no correlated shell: there is no saddle point to solve");
+        var names = model.ShellGroups();
+        _groups = new GroupInfo[names.Count];
+        for (int g = 0; g < names.Count; g++)
+        {
+            var shells = model.Shells.Where(s => s.Group == names[g]).ToList();
+            if (shells.Any(s => s.Constraint != shells[0].Constraint || s.Degeneracy != shells[0].Degeneracy))
+                throw new ArgumentException($"shell group '{names[g]}': all its shells need the same N and Q");
+            var q = shells[0].Constraint;
+            if (!(q > 0 && q < shells[0].Degeneracy))
+                throw new ArgumentException($"shell group '{names[g]}': the constraint Q = {q} cannot be met by N = {shells[0].Degeneracy} f states and a boson (need 0 < Q < N)");
+            _groups[g] = new GroupInfo(names[g], shells.Count, q, shells[0].Level, shells[0].Degeneracy);
+        }
+        if (model.ElectronsPerCell < 0 || model.ElectronsPerCell > model.StatesPerCell)
+            throw new ArgumentException($"{model.ElectronsPerCell} electrons per cell is impossible: the cell has {model.StatesPerCell} states");
+        _sum = model.IsMomentumFree
+            ? new LocalDosStateSum(Bare, settings.DosNodes)
+            : new MeshStateSum(Bare, new KMesh(model.Lattice, settings.Mesh, settings.Shifted));
+    }
+
+    private int G => _groups.Length;
+
+    /// <summary>
+    /// Residuals at y = (ln r, lambda), the variables the iteration runs in: ln r keeps r positive and spreads the
+    /// exponentially small Kondo scales evenly. The stationarity equation is divided by r there (both terms are
+    /// proportional to r near r = 0), which keeps the Jacobian regular; <see cref="Unscaled"/> restores the equations.
+    /// </summary>
+    private (double[] residual, BandFilling filling) EvaluateLog(double[] y)
+    {
+        var (res, fill) = Evaluate(ToAmplitudeVector(y));
+        for (int g = 0; g < G; g++) res[G + g] /= Math.Exp(y[g]);
+        return (res, fill);
+    }
+
+    private double[] ToAmplitudeVector(double[] y)
+    {
+        var x = (double[])y.Clone();
+        for (int g = 0; g < G; g++) x[g] = Math.Exp(y[g]);
+        return x;
+    }
+
+    private double[] Unscaled(double[] y, double[] scaledResidual)
+    {
+        var res = (double[])scaledResidual.Clone();
+        for (int g = 0; g < G; g++) res[G + g] *= Math.Exp(y[g]);
+        return res;
+    }
+
+    /// <summary>Residuals of the 2G equations at x = (r, lambda), and the filling there.</summary>
+    private (double[] residual, BandFilling filling) Evaluate(double[] x)
+    {
+        var amp = MeanFieldAmplitudes.Unpack(x);
+        var table = _sum.Fill(amp);
+        _passes++;
+        var fill = BandFilling.Compute(table, _model.ElectronsPerCell, _settings.Temperature);
+        var res = new double[2 * G];
+        for (int g = 0; g < G; g++)
+        {
+            double r = amp.R[g], m = _groups[g].Shells;
+            res[g] = fill.FOccupation[g] / m + r * r - _groups[g].Q;
+            res[G + g] = fill.GrandPotentialSlope[g] / m + 2 * amp.Lambda[g] * r;
+        }
+        return (res, fill);
+    }
+
+    private double FreeEnergy(MeanFieldAmplitudes amp, BandFilling fill)
+    {
+        double f = fill.GrandPotential + fill.Mu * _model.ElectronsPerCell;
+        for (int g = 0; g < G; g++) f += _groups[g].Shells * amp.Lambda[g] * (amp.R[g] * amp.R[g] - _groups[g].Q);
+        return f;
+    }
+
+    /// <summary>Free energy F(r, lambda) per cell with mu fixed by the electron count (for stationarity checks).</summary>
+    public double FreeEnergyAt(MeanFieldAmplitudes amp)
+    {
+        var fill = BandFilling.Compute(_sum.Fill(amp), _model.ElectronsPerCell, _settings.Temperature);
+        return FreeEnergy(amp, fill);
+    }
+
+    private static double MaxAbs(double[] v) { double m = 0; foreach (var a in v) m = Math.Max(m, Math.Abs(a)); return m; }
+    private static double Norm(double[] v) { double m = 0; foreach (var a in v) m += a * a; return Math.Sqrt(m); }
+
+    private double[] Jacobian(double[] x, double[] res)
+    {
+        int n = x.Length;
+        var j = new double[n * n];
+        for (int c = 0; c < n; c++)
+        {
+            double h = c < G ? 1e-6 : 1e-7 * Math.Max(1.0, Math.Abs(x[c]));
+            var xp = (double[])x.Clone(); xp[c] += h;
+            var (rp, _) = EvaluateLog(xp);
+            for (int r = 0; r < n; r++) j[r * n + c] = (rp[r] - res[r]) / h;
+        }
+        return j;
+    }
+
+    /// <summary>Built-in starting points: a sizeable r with the f level placed at the chemical potential.</summary>
+    private IEnumerable<double[]> Guesses()
+    {
+        if (_settings.InitialGuess is { } guess && guess.GroupCount == G) yield return guess.Pack();
+        foreach (var fraction in new[] { 0.5, 0.2, 0.05 })
+        {
+            var x = new double[2 * G];
+            for (int g = 0; g < G; g++) { x[g] = Math.Sqrt(fraction * _groups[g].Q); x[G + g] = -_groups[g].Level; }
+            var (_, fill) = Evaluate(x);
+            for (int g = 0; g < G; g++) x[G + g] = fill.Mu - _groups[g].Level;
+            yield return x;
+        }
+    }
+
+    public SaddlePoint Solve(CancellationToken cancellation = default)
+    {
+        var clock = Stopwatch.StartNew();
+        _passes = 0;
+        Attempt? best = null;
+        foreach (var start in Guesses())
+        {
+            var attempt = Iterate(start, cancellation);
+            if (best is null || (attempt.Converged && !best.Converged) || (!best.Converged && attempt.Residual < best.Residual)) best = attempt;
+            if (attempt.Converged) break;
+        }
+        var result = Finish(best!);
+        return result with { WallSeconds = clock.Elapsed.TotalSeconds, ZonePasses = _passes };
+    }
+
+    private sealed record Attempt(double[] X, double[] Res, BandFilling Filling, int Iterations, bool Converged, bool Collapsed, bool Stalled)
+    {
+        public double Residual => MaxAbs(Res);
+    }
+
+    private Attempt Iterate(double[] x0, CancellationToken ct)
+    {
+        var y = (double[])x0.Clone();
+        for (int g = 0; g < G; g++) y[g] = Math.Log(Math.Max(x0[g], 1e-300));
+        var (res, fill) = EvaluateLog(y);
+        double[]? jac = null; bool fresh = false;
+        int n = y.Length;
+        double collapse = Math.Log(_settings.CollapseThreshold);
+        for (int it = 0; it < _settings.MaxIterations; it++)
+        {
+            ct.ThrowIfCancellationRequested();
+            if (MaxAbs(Unscaled(y, res)) < _settings.Tolerance && MaxAbs(res) < 1e3 * _settings.Tolerance)
+                return new(ToAmplitudeVector(y), Unscaled(y, res), fill, it, true, false, false);
+            bool collapsed = true;
+            for (int g = 0; g < G; g++) collapsed &= y[g] < collapse;
+            if (collapsed) return new(ToAmplitudeVector(y), Unscaled(y, res), fill, it, false, true, false);
+            if (jac is null) { jac = Jacobian(y, res); fresh = true; }
+            var rhs = new double[n];
+            for (int i = 0; i < n; i++) rhs[i] = -res[i];
+            if (!Numerics.DenseSolve.TrySolve(jac, rhs, n, out var dy))
+            {
+                if (fresh) return new(ToAmplitudeVector(y), Unscaled(y, res), fill, it, false, false, true);
+                jac = null; continue;
+            }
+            // A step may change r by at most a factor e^2 (ln r moves by at most 2).
+            double alpha = 1;
+            for (int g = 0; g < G; g++) if (Math.Abs(dy[g]) > 2) alpha = Math.Min(alpha, 2 / Math.Abs(dy[g]));
+            double norm0 = Norm(res);
+            bool accepted = false;
+            double[] yn = y, rn = res; BandFilling fn = fill;
+            for (int ls = 0; ls < 8; ls++, alpha *= 0.5)
+            {
+                yn = new double[n];
+                for (int i = 0; i < n; i++) yn[i] = y[i] + alpha * dy[i];
+                (rn, fn) = EvaluateLog(yn);
+                if (Norm(rn) < (1 - 1e-4 * alpha) * norm0) { accepted = true; break; }
+            }
+            if (!accepted)
+            {
+                if (fresh) return new(ToAmplitudeVector(y), Unscaled(y, res), fill, it + 1, false, false, true);
+                jac = null; continue;
+            }
+            // Broyden's rank-one update: J += (dF - J dy) dy^T / (dy^T dy).
+            var step = new double[n]; double ss = 0;
+            for (int i = 0; i < n; i++) { step[i] = yn[i] - y[i]; ss += step[i] * step[i]; }
+            for (int r = 0; r < n; r++)
+            {
+                double jdy = 0;
+                for (int c = 0; c < n; c++) jdy += jac[r * n + c] * step[c];
+                double u = (rn[r] - res[r] - jdy) / ss;
+                for (int c = 0; c < n; c++) jac[r * n + c] += u * step[c];
+            }
+            fresh = false;
+            y = yn; res = rn; fill = fn;
+        }
+        var final = Unscaled(y, res);
+        return new(ToAmplitudeVector(y), final, fill, _settings.MaxIterations, MaxAbs(final) < _settings.Tolerance, false, false);
+    }
+
+    private SaddlePoint Finish(Attempt a)
+    {
+        var amp = MeanFieldAmplitudes.Unpack(a.X);
+        var notes = new List<string>();
+        var decoupled = Decoupled();
+        if (a.Collapsed)
+        {
+            if (decoupled is not null)
+            {
+                notes.Add("r collapsed to 0: the decoupled (local-moment) solution is the only one at this temperature (above the mean-field Kondo temperature, a sharp transition only at mean field; physically a crossover).");
+                return decoupled with { Iterations = a.Iterations, Notes = notes };
+            }
+            notes.Add("r collapsed to 0 but no decoupled solution exists at this electron count.");
+        }
+        var kondo = Build(amp, a.Filling, a.Res, a.Iterations, a.Converged, SaddlePointBranch.Kondo, decoupled?.FreeEnergy);
+        if (!a.Converged)
+        {
+            notes.Add(a.Stalled
+                ? $"the iteration stalled at residual {a.Residual:G3} (no step lowered it)."
+                : $"the iteration cap of {_settings.MaxIterations} was reached at residual {a.Residual:G3}.");
+            if (_settings.Temperature <= 0 && a.Filling.Status != FermiLevelStatus.Regular)
+                notes.Add("T = 0 with states at the Fermi level on this mesh: occupations jump between iterations. " +
+                          "Use a small temperature (for example --temperature 1K) or a shifted mesh with an odd number of divisions.");
+            else
+                notes.Add("try more iterations, a starting point from a neighbouring solution, or a small temperature.");
+        }
+        else if (decoupled is not null && decoupled.FreeEnergy < kondo.FreeEnergy)
+        {
+            notes.Add($"the decoupled solution has the lower free energy ({decoupled.FreeEnergy:G8} < {kondo.FreeEnergy:G8}): it is reported instead.");
+            return decoupled with { Notes = notes, Iterations = a.Iterations };
+        }
+        return kondo with { Notes = notes };
+    }
+
+    private SaddlePoint Build(MeanFieldAmplitudes amp, BandFilling fill, double[] res, int iterations, bool converged,
+                              SaddlePointBranch branch, double? decoupledF)
+    {
+        var groups = new ShellGroupSolution[G];
+        for (int g = 0; g < G; g++)
+            groups[g] = new(_groups[g].Name, _groups[g].Shells, amp.R[g], amp.Lambda[g], _groups[g].Level,
+                            _groups[g].Level + amp.Lambda[g] - fill.Mu, fill.FOccupation[g] / _groups[g].Shells);
+        return new SaddlePoint
+        {
+            Converged = converged, Iterations = iterations, ResidualNorm = MaxAbs(res), Temperature = _settings.Temperature,
+            Mu = fill.Mu, FreeEnergy = FreeEnergy(amp, fill), ElectronsPerCell = _model.ElectronsPerCell, Branch = branch,
+            Groups = groups, Amplitudes = amp, DecoupledFreeEnergy = decoupledF, FermiLevel = fill.Status,
+            Sampling = SamplingText(),
+        };
+    }
+
+    private string SamplingText() => _settings.Temperature > 0
+        ? $"{_sum.Description}; Fermi-Dirac occupations at T = {_settings.Temperature:G6}"
+        : $"{_sum.Description}; T = 0 step occupations";
+
+    /// <summary>
+    /// The r = 0 solution: f shells hold Q electrons each at a level pinned near mu, decoupled from the conduction band,
+    /// which takes the remaining N_e - sum Q electrons. Per shell F_f = eps_f Q - T S_mf with the mean-field entropy
+    /// S_mf = N ln N - Q ln Q - (N - Q) ln(N - Q). Null when the conduction band cannot hold the remaining electrons.
+    /// </summary>
+    public SaddlePoint? Decoupled()
+    {
+        double t = _settings.Temperature;
+        double fElectrons = 0;
+        foreach (var g in _groups) fElectrons += g.Shells * g.Q;
+        double remaining = _model.ElectronsPerCell - fElectrons;
+        int conductionStates = _model.Orbitals.Count(o => o.Kind == OrbitalKind.Conduction) * _model.Flavours;
+        if (remaining < 0 || remaining > conductionStates) return null;
+        double far = 1e6 * (1 + Math.Abs(_groups.Max(g => Math.Abs(g.Level))));
+        var x = new double[2 * G];
+        for (int g = 0; g < G; g++) x[G + g] = far;
+        var table = _sum.Fill(MeanFieldAmplitudes.Unpack(x));
+        _passes++;
+        var fill = BandFilling.Compute(table, remaining, t);
+        double free = fill.GrandPotential + fill.Mu * remaining;
+        var groups = new ShellGroupSolution[G];
+        var lambda = new double[G];
+        for (int g = 0; g < G; g++)
+        {
+            var s = _groups[g];
+            double n = s.Degeneracy, q = s.Q;
+            double entropy = n * Math.Log(n) - q * Math.Log(q) - (n - q) * Math.Log(n - q);
+            free += s.Shells * (s.Level * q - t * entropy);
+            double offset = t * Math.Log((n - q) / q);
+            lambda[g] = fill.Mu + offset - s.Level;
+            groups[g] = new(s.Name, s.Shells, 0, lambda[g], s.Level, offset, q);
+        }
+        return new SaddlePoint
+        {
+            Converged = true, Iterations = 0, ResidualNorm = 0, Temperature = t, Mu = fill.Mu, FreeEnergy = free,
+            ElectronsPerCell = _model.ElectronsPerCell, Branch = SaddlePointBranch.Decoupled, Groups = groups,
+            Amplitudes = new MeanFieldAmplitudes(new double[G], lambda), DecoupledFreeEnergy = free, FermiLevel = fill.Status,
+            Sampling = SamplingText(),
+        };
+    }
+}

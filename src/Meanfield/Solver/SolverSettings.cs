@@ -1,0 +1,32 @@
+using Meanfield.Renormalization;
+
+namespace Meanfield.Solver;
+
+/// <summary>How to solve the saddle point. Energies and the temperature are in the model's energy unit (k_B = 1).</summary>
+public sealed record SolverSettings
+{
+    /// <summary>Temperature T &gt;= 0 in the energy unit.</summary>
+    public double Temperature { get; init; }
+    /// <summary>Convergence threshold on the largest residual (constraint: dimensionless; stationarity: energy unit).</summary>
+    public double Tolerance { get; init; } = 1e-10;
+    public int MaxIterations { get; init; } = 100;
+    /// <summary>k-mesh divisions per reciprocal vector (ignored by momentum-free lattices).</summary>
+    public int Mesh { get; init; } = 16;
+    /// <summary>Shifted Monkhorst-Pack mesh, which avoids the high-symmetry lines where band touchings sit.</summary>
+    public bool Shifted { get; init; } = true;
+    /// <summary>Quadrature nodes over the conduction DOS of momentum-free lattices.</summary>
+    public int DosNodes { get; init; } = 32768;
+    /// <summary>Starting amplitudes (a neighbouring scan point's solution); null for the built-in guesses.</summary>
+    public MeanFieldAmplitudes? InitialGuess { get; init; }
+    /// <summary>Below this r every group is taken to have collapsed to the decoupled (local-moment) solution.</summary>
+    public double CollapseThreshold { get; init; } = 1e-5;
+
+    public void Validate()
+    {
+        if (!(Temperature >= 0) || double.IsInfinity(Temperature)) throw new ArgumentException($"temperature must be >= 0, got {Temperature}");
+        if (Mesh < 2) throw new ArgumentException($"mesh must be at least 2 divisions, got {Mesh}");
+        if (!(Tolerance > 0)) throw new ArgumentException($"tolerance must be positive, got {Tolerance}");
+        if (MaxIterations < 1) throw new ArgumentException($"max iterations must be at least 1, got {MaxIterations}");
+        if (DosNodes < 64) throw new ArgumentException($"DOS quadrature needs at least 64 nodes, got {DosNodes}");
+    }
+}
