@@ -1,0 +1,100 @@
+using System.Text.Json;
+using System.Text.Json.Serialization;
+using Meanfield.Binding;
+using Meanfield.Renormalization;
+using Meanfield.Solver;
+
+namespace Meanfield.Output;
+
+/// <summary>
+/// The JSON form of a saddle-point solution (`meanfield solve --out solution.json`). Energies are in
+/// <see cref="EnergyUnit"/>, per unit cell; every field is described in the README's solution-file table.
+/// </summary>
+public sealed record SolutionDocument
+{
+    public required string Format { get; init; }
+    public required bool Converged { get; init; }
+    public required int Iterations { get; init; }
+    public required double ResidualNorm { get; init; }
+    public required string EnergyUnit { get; init; }
+    public required double Temperature { get; init; }
+    public required double TemperatureK { get; init; }
+    public required double Mu { get; init; }
+    public required double FreeEnergy { get; init; }
+    public double? DecoupledFreeEnergy { get; init; }
+    public required double ElectronsPerCell { get; init; }
+    public required string Branch { get; init; }
+    public string? Phase { get; init; }
+    public required IReadOnlyList<SiteEntry> Sites { get; init; }
+    public required IReadOnlyDictionary<string, double> Parameters { get; init; }
+    public required SamplingEntry Sampling { get; init; }
+    public required string ModelPath { get; init; }
+    public required string ModelSha256 { get; init; }
+    public required string ToolVersion { get; init; }
+    public required string Backend { get; init; }
+    public required string Created { get; init; }
+    public required double WallSeconds { get; init; }
+    public IReadOnlyList<string> Notes { get; init; } = [];
+
+    public sealed record SiteEntry(string Name, int Shells, double R, double Lambda, double BareLevel,
+                                   double RenormalizedLevel, double NF, double Z);
+
+    public sealed record SamplingEntry(string Description, int? Mesh, bool? Shifted, string Occupations);
+
+    public const string FormatTag = "meanfield-solution/1";
+
+    private static readonly JsonSerializerOptions Json = new()
+    {
+        PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower,
+        WriteIndented = true,
+        DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull,
+        NumberHandling = JsonNumberHandling.AllowNamedFloatingPointLiterals,
+    };
+
+    public static SolutionDocument From(SaddlePoint sp, BoundModel model, SolverSettings settings, string? phase = null) => new()
+    {
+        Format = FormatTag, Converged = sp.Converged, Iterations = sp.Iterations, ResidualNorm = sp.ResidualNorm,
+        EnergyUnit = Units.EnergyUnits.Symbol(model.Unit), Temperature = sp.Temperature,
+        TemperatureK = sp.Temperature * Units.EnergyUnits.Kelvins(model.Unit), Mu = sp.Mu, FreeEnergy = sp.FreeEnergy,
+        DecoupledFreeEnergy = sp.DecoupledFreeEnergy, ElectronsPerCell = sp.ElectronsPerCell,
+        Branch = sp.Branch == SaddlePointBranch.Kondo ? "kondo" : "decoupled", Phase = phase,
+        Sites = [.. sp.Groups.Select(g => new SiteEntry(g.Name, g.Shells, g.R, g.Lambda, g.BareLevel, g.RenormalizedLevel, g.FOccupation, g.Z))],
+        Parameters = model.Parameters.ToDictionary(p => p.Key, p => p.Value),
+        Sampling = new(sp.Sampling, model.IsMomentumFree ? null : settings.Mesh, model.IsMomentumFree ? null : settings.Shifted,
+                       sp.Temperature > 0 ? "fermi-dirac" : "step"),
+        ModelPath = model.SourcePath, ModelSha256 = Provenance.Hash(model.SourceText), ToolVersion = Provenance.ToolVersion,
+        Backend = Provenance.Backend, Created = Provenance.NowUtc(), WallSeconds = sp.WallSeconds, Notes = sp.Notes,
+    };
+
+    public string ToJson() => JsonSerializer.Serialize(this, Json);
+
+    public void Save(string path) => AtomicFile.WriteText(path, ToJson() + "\n");
+
+    /// <summary>Reads a solution file; a file that is not one gives an <see cref="InvalidDataException"/> naming it.</summary>
+    public static SolutionDocument Load(string path)
+    {
+        try
+        {
+            var doc = JsonSerializer.Deserialize<SolutionDocument>(File.ReadAllText(path), Json)
+                      ?? throw new InvalidDataException($"{path}: empty solution file");
+            if (doc.Format != FormatTag) throw new InvalidDataException($"{path}: format '{doc.Format}' is not '{FormatTag}'");
+            return doc;
+        }
+        catch (JsonException e)
+        {
+            throw new InvalidDataException($"{path}:{e.LineNumber + 1}: not a meanfield solution file ({e.Message})", e);
+        }
+    }
+
+    /// <summary>Amplitudes for the model's shell groups, after checking the solution belongs to this model text.</summary>
+    public MeanFieldAmplitudes AmplitudesFor(BoundModel model, string solutionPath)
+    {
+        var hash = Provenance.Hash(model.SourceText);
+        if (hash != ModelSha256)
+            throw new InvalidDataException($"{solutionPath}: solution was made from a different model text (model hash {ModelSha256[..12]}, this model {hash[..12]}); solve again");
+        var groups = model.ShellGroups();
+        if (groups.Count != Sites.Count || groups.Where((g, i) => g != Sites[i].Name).Any())
+            throw new InvalidDataException($"{solutionPath}: shell groups [{string.Join(", ", Sites.Select(s => s.Name))}] do not match the model's [{string.Join(", ", groups)}]");
+        return new MeanFieldAmplitudes([.. Sites.Select(s => s.R)], [.. Sites.Select(s => s.Lambda)]);
+    }
+}
