@@ -63,8 +63,11 @@ public static class BandPlot
         foreach (var t in ticks)
             if (t.Position > 0 && t.Position < length) plot.Add.VerticalLine(t.Position, 1, Colors.Gray);
         if (labels)
+        {
             plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericManual(
                 ticks.Select(t => t.Position).ToArray(), ticks.Select(t => t.DisplayLabel).ToArray());
+            plot.Axes.Bottom.TickLabelStyle.FontSize = PlotStyle.LabelFontSize;   // the point labels are the x axis
+        }
         else
             plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericManual();
 

@@ -40,6 +40,7 @@ public static class PlotStyle
         plot.Font.Set(FontName);
         plot.Legend.SetBestFontOnEachRender = false;
         plot.Legend.FontName = FontName;
+        plot.Legend.FontSize = TickFontSize;
         plot.Title(title, LabelFontSize + 2);
         plot.XLabel(xLabel, LabelFontSize);
         plot.YLabel(yLabel, LabelFontSize);
