@@ -29,6 +29,8 @@ public sealed class BoundModel
     /// <summary>Full text of the model file (its hash goes into every output's provenance).</summary>
     public string SourceText { get; init; } = "";
     public string SourcePath { get; init; } = "";
+    /// <summary>Solver settings suggested by the model file's [solver] table, or null.</summary>
+    public SolverHints? Solver { get; init; }
 
     /// <summary>Dimension of the Bloch Hamiltonian: orbitals times flavours.</summary>
     public int BasisSize => Orbitals.Count * Flavours;
@@ -54,5 +56,6 @@ public sealed class BoundModel
         Shells = shells ?? Shells, Hoppings = hoppings ?? Hoppings, Onsite = onsite ?? Onsite,
         ElectronsPerCell = ElectronsPerCell, Unit = Unit, FormulaUnitsPerCell = FormulaUnitsPerCell,
         DosHalfWidth = DosHalfWidth, Parameters = Parameters, SourceText = SourceText, SourcePath = SourcePath,
+        Solver = Solver,
     };
 }
