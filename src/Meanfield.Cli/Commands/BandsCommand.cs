@@ -1,0 +1,48 @@
+using System.CommandLine;
+using Meanfield.Analysis.Bands;
+using Meanfield.Lattices;
+using Meanfield.Output;
+
+namespace Meanfield.Cli.Commands;
+
+/// <summary>`meanfield bands INPUT --out FILE`: band energies along a path, as a table and a picture.</summary>
+public static class BandsCommand
+{
+    public static Command Build()
+    {
+        var input = CommonOptions.InputArgument();
+        var set = CommonOptions.Set();
+        var temperature = CommonOptions.Temperature();
+        var mesh = CommonOptions.Mesh();
+        var output = CommonOptions.Out();
+        var path = new Option<string>("--path") { Description = "\"auto\" (the lattice's standard path) or labels like \"G X W L G\" (| breaks the path)", DefaultValueFactory = _ => "auto" };
+        var points = new Option<int>("--points") { Description = "k-points along the whole path", DefaultValueFactory = _ => 300 };
+        var bare = new Option<bool>("--bare") { Description = "Use the bare model: f levels and hybridization unrenormalized" };
+        var weight = new Option<bool>("--no-weight") { Description = "Do not colour the bands by their correlated-orbital weight" };
+        var command = new Command("bands", "Band energies along a high-symmetry path (CSV or Parquet by extension) and a picture (PNG next to it)")
+            { input, set, temperature, mesh, output, path, points, bare, weight };
+        command.SetAction(parse =>
+        {
+            var o = parse.InvocationConfiguration.Output;
+            var outPath = parse.GetValue(output)!;
+            var ext = Path.GetExtension(outPath).ToLowerInvariant();
+            if (ext is not (".csv" or ".parquet")) throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name");
+            int count = parse.GetValue(points);
+            if (count < 2) throw new UserInputException($"--points {count}: need at least 2");
+            var src = SolutionInput.Resolve(parse.GetValue(input)!, parse.GetValue(set), parse.GetValue(temperature), parse.GetValue(mesh), parse.GetValue(bare), o);
+            if (src.Model.IsMomentumFree) throw new UserInputException($"{src.Model.SourcePath}: a momentum-free lattice has no bands along a path; use `dos`");
+            var spec = parse.GetValue(path)!;
+            var bandPath = spec == "auto" ? BandPath.Default(src.Model.Lattice) : BandPath.Parse(spec, src.Model.Lattice);
+            var bands = BandStructure.Compute(src.Hamiltonian, bandPath.Sample(count));
+            var metadata = new Dictionary<string, string> { ["source"] = src.Origin, ["model_sha256"] = Provenance.Hash(src.Model.SourceText), ["tool_version"] = Provenance.ToolVersion };
+            if (src.Mu is { } mu) metadata["chemical_potential"] = mu.ToString("R", System.Globalization.CultureInfo.InvariantCulture);
+            BandTableWriter.Write(bands, outPath, metadata);
+            var picture = Path.ChangeExtension(outPath, ".png");
+            var title = $"{src.Model.Name}: {(src.Origin == "bare model" ? "bare bands" : "renormalized bands")}";
+            BandPlot.Save(bands, picture, title, src.Model.Unit, src.Mu, colourByCorrelatedWeight: !parse.GetValue(weight) && src.Model.Shells.Count > 0);
+            o.WriteLine($"wrote {outPath} and {picture} ({bands.Energies().GetLength(0)} k-points, {bands.Energies().GetLength(1)} bands)");
+            return ExitCodes.Success;
+        });
+        return command;
+    }
+}

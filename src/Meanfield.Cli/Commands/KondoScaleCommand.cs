@@ -1,0 +1,43 @@
+using System.CommandLine;
+using Meanfield.Solver;
+using Meanfield.Units;
+
+namespace Meanfield.Cli.Commands;
+
+/// <summary>`meanfield kondo-scale MODEL`: the mean-field Kondo temperature by continuation and bisection in T.</summary>
+public static class KondoScaleCommand
+{
+    public static Command Build()
+    {
+        var model = CommonOptions.ModelArgument();
+        var set = CommonOptions.Set();
+        var mesh = CommonOptions.Mesh();
+        var start = new Option<string?>("--from") { Description = "Starting (low) temperature, e.g. 0.5K (default: the model's [solver] temperature, else 1e-3 of the energy unit)" };
+        var tolerance = new Option<double>("--relative-tolerance") { Description = "Bisection stops at this relative width", DefaultValueFactory = _ => 1e-3 };
+        var command = new Command("kondo-scale", "Find the mean-field Kondo temperature T_K^MF (where r -> 0)") { model, set, mesh, start, tolerance };
+        command.SetAction(parse =>
+        {
+            var o = parse.InvocationConfiguration.Output;
+            var bound = CommonOptions.LoadModel(parse.GetValue(model)!, CommonOptions.ParseSets(parse.GetValue(set)));
+            var baseSettings = CommonOptions.Settings(bound, parse.GetValue(start), parse.GetValue(mesh));
+            double t0 = baseSettings.Temperature > 0 ? baseSettings.Temperature : 1e-3;
+            var progress = new Progress<string>(s => o.WriteLine("  " + s));
+            var result = KondoTemperature.Find(
+                (t, guess) => new SaddlePointSolver(bound, baseSettings with { Temperature = t, InitialGuess = guess }).Solve(),
+                t0, parse.GetValue(tolerance), progress: new SyncProgress(o));
+            if (result.Temperature is not { } tk)
+            {
+                parse.InvocationConfiguration.Error.WriteLine($"error: {result.Problem}");
+                return ExitCodes.NoAnswer;
+            }
+            o.WriteLine($"T_K^MF = {tk:G6} {bound.Unit.Symbol()} = {tk * bound.Unit.Kelvins():G6} K  ({result.Trail.Count} solutions; a sharp transition only at mean field, a crossover in reality)");
+            return ExitCodes.Success;
+        });
+        return command;
+    }
+
+    private sealed class SyncProgress(TextWriter o) : IProgress<string>
+    {
+        public void Report(string value) => o.WriteLine("  " + value);
+    }
+}

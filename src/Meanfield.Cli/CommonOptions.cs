@@ -1,0 +1,83 @@
+using System.CommandLine;
+using System.Globalization;
+using Meanfield.Binding;
+using Meanfield.Models;
+using Meanfield.Solver;
+using Meanfield.Units;
+
+namespace Meanfield.Cli;
+
+/// <summary>Arguments and options shared by several commands, and the code that turns them into library inputs.</summary>
+public static class CommonOptions
+{
+    public static Argument<string> ModelArgument() => new("MODEL") { Description = "Model file (.toml)" };
+
+    public static Argument<string> InputArgument() =>
+        new("INPUT") { Description = "A solution file (.json from `solve`) or a model file (.toml, solved on the fly)" };
+
+    public static Option<string[]> Set() => new("--set")
+    {
+        Description = "Override a parameter: NAME=VALUE (VALUE may be an expression); repeatable",
+        AllowMultipleArgumentsPerToken = false,
+    };
+
+    public static Option<string?> Temperature() =>
+        new("--temperature", "-T") { Description = "Temperature: a number in the model's energy unit, or with a unit: 2K, 0.3meV" };
+
+    public static Option<int?> Mesh() => new("--mesh") { Description = "k-mesh divisions per reciprocal axis (default: model's [solver] or 16)" };
+
+    public static Option<string> Out(bool required = true) => new("--out", "-o") { Description = "Output file", Required = required };
+
+    public static Dictionary<string, string> ParseSets(string[]? sets)
+    {
+        var result = new Dictionary<string, string>(StringComparer.Ordinal);
+        foreach (var s in sets ?? [])
+        {
+            int eq = s.IndexOf('=');
+            if (eq <= 0 || eq == s.Length - 1) throw new UserInputException($"--set '{s}': expected NAME=VALUE");
+            result[s[..eq].Trim()] = s[(eq + 1)..].Trim();
+        }
+        return result;
+    }
+
+    public static BoundModel LoadModel(string path, IReadOnlyDictionary<string, string>? overrides)
+    {
+        if (!File.Exists(path)) throw new UserInputException($"{path}: model file not found");
+        return ModelBinder.Bind(ModelFile.Load(path), overrides);
+    }
+
+    /// <summary>"2K", "2 K", "0.3meV", "1e-3 eV" or a bare number (the model's energy unit) to the model's energy unit.</summary>
+    public static double ParseTemperature(string text, EnergyUnit unit, string option = "--temperature")
+    {
+        var t = text.Trim();
+        int split = t.Length;
+        while (split > 0 && char.IsLetter(t[split - 1])) split--;
+        var number = t[..split].Trim();
+        var suffix = t[split..];
+        if (!double.TryParse(number, NumberStyles.Float, CultureInfo.InvariantCulture, out var value))
+            throw new UserInputException($"{option} '{text}': not a number");
+        double inUnit;
+        if (suffix.Length == 0) inUnit = value;
+        else if (EnergyUnits.TryParse(suffix, out var given)) inUnit = value * given.Joules() / unit.Joules();
+        else throw new UserInputException($"{option} '{text}': unknown unit '{suffix}' (use K, meV or eV)");
+        if (!(inUnit >= 0)) throw new UserInputException($"{option} '{text}': temperature must be >= 0");
+        return inUnit;
+    }
+
+    /// <summary>Solver settings: command-line values first, then the model's [solver] table, then defaults.</summary>
+    public static SolverSettings Settings(BoundModel model, string? temperature, int? mesh)
+    {
+        var hints = model.Solver;
+        var settings = new SolverSettings
+        {
+            Temperature = temperature is null ? hints?.Temperature ?? 0 : ParseTemperature(temperature, model.Unit),
+            Mesh = mesh ?? hints?.Mesh ?? 16,
+            Shifted = hints?.Shifted ?? true,
+            Tolerance = hints?.Tolerance ?? 1e-10,
+            MaxIterations = hints?.MaxIterations ?? 100,
+        };
+        try { settings.Validate(); }
+        catch (ArgumentException e) { throw new UserInputException(e.Message); }
+        return settings;
+    }
+}

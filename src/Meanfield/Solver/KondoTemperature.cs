@@ -1,0 +1,51 @@
+namespace Meanfield.Solver;
+
+/// <summary>
+/// The mean-field Kondo temperature T_K^MF: the temperature where r -&gt; 0 (the coherent solution ceases to exist).
+/// Found by continuation upward in T from a low temperature, each step warm-started from the last, then bisection
+/// between the last temperature with r &gt; 0 and the first without. At mean field the transition is sharp; in the
+/// real system it is a crossover, so T_K^MF marks a scale, not a phase transition.
+/// </summary>
+public static class KondoTemperature
+{
+    /// <param name="solve">Solves the model at a temperature (energy unit), warm-started from the given amplitudes.</param>
+    /// <param name="start">A low starting temperature (energy unit) where the coherent solution exists.</param>
+    /// <param name="relativeTolerance">Bisection stops when the bracket is this narrow relative to T.</param>
+    public static KondoScaleResult Find(Func<double, Renormalization.MeanFieldAmplitudes?, SaddlePoint> solve, double start,
+                                        double relativeTolerance = 1e-3, int maxDoublings = 40, IProgress<string>? progress = null)
+    {
+        var trail = new List<SaddlePoint>();
+        var first = solve(start, null);
+        trail.Add(first);
+        if (!IsCoherent(first))
+            return new KondoScaleResult(null, trail, $"no coherent (r > 0) solution at the starting temperature {start:G4}; start lower");
+        double lowT = start, highT = double.NaN;
+        var low = first;
+        for (int i = 0; i < maxDoublings; i++)
+        {
+            double t = lowT * 2;
+            var sp = solve(t, low.Amplitudes);
+            trail.Add(sp);
+            progress?.Report($"T = {t:G4}: {(IsCoherent(sp) ? $"r = {sp.Groups.Min(g => g.R):G4}" : "decoupled")}");
+            if (IsCoherent(sp)) { lowT = t; low = sp; }
+            else { highT = t; break; }
+        }
+        if (double.IsNaN(highT)) return new KondoScaleResult(null, trail, "r stayed finite up to the largest temperature tried");
+        while ((highT - lowT) > relativeTolerance * lowT)
+        {
+            double t = 0.5 * (lowT + highT);
+            var sp = solve(t, low.Amplitudes);
+            trail.Add(sp);
+            progress?.Report($"T = {t:G6}: {(IsCoherent(sp) ? $"r = {sp.Groups.Min(g => g.R):G4}" : "decoupled")}");
+            if (IsCoherent(sp)) { lowT = t; low = sp; } else highT = t;
+        }
+        return new KondoScaleResult(0.5 * (lowT + highT), trail, null);
+    }
+
+    /// <summary>A converged solution on the Kondo branch with every r above the collapse threshold.</summary>
+    public static bool IsCoherent(SaddlePoint sp) =>
+        sp.Converged && sp.Branch == SaddlePointBranch.Kondo && sp.Groups.All(g => g.R > 1e-4);
+}
+
+/// <summary>T_K^MF in the energy unit (null when not found, with the reason) and every solution visited.</summary>
+public sealed record KondoScaleResult(double? Temperature, IReadOnlyList<SaddlePoint> Trail, string? Problem);
