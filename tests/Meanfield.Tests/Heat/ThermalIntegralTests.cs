@@ -4,9 +4,9 @@ namespace Meanfield.Tests.Heat;
 
 public class ThermalIntegralTests
 {
-    // Int_{-inf}^{inf} x^4 e^x/(e^x+1)^2 dx = 7 pi^4/15 = 45.45757582: Sommerfeld-type integral, Ashcroft & Mermin,
-    // Solid State Physics (1976), app. C (Int x^{2n} (-df/dx) dx = 2 (2 - 2^{2-2n}) zeta(2n) (2n)! ... for n = 2:
-    // (7/4) 4! zeta(4) * ... = 7 pi^4/15). Recomputed here by quadrature, independent of the library's kernels.
+    // Int_{-inf}^{inf} x^4 e^x/(e^x+1)^2 dx = 7 pi^4/15 = 45.45757582: Sommerfeld-type integral (Ashcroft & Mermin,
+    // Solid State Physics (1976), app. C). General form Int x^{2n} (-df/dx) dx = 2 (1 - 2^{1-2n}) (2n)! zeta(2n)
+    // (from memory): n = 2 gives 2 (7/8) 24 (pi^4/90) = 7 pi^4/15. Recomputed here by quadrature.
     [Fact]
     public void FermiFourthMomentIsSevenPiToTheFourthOverFifteen()
     {
