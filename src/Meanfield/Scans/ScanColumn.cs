@@ -11,11 +11,15 @@ public abstract class ScanColumn(DataField field, string unit)
     public string Unit { get; } = unit;
     internal abstract Task WriteAsync(ParquetRowGroupWriter writer, IReadOnlyList<ScanRow> rows, CancellationToken ct);
     internal abstract Task ReadAsync(ParquetRowGroupReader reader, RowDraft[] rows, CancellationToken ct);
+    /// <summary>The column's value in a row (boxed; null where not computed).</summary>
+    public abstract object? Value(ScanRow row);
 }
 
 internal sealed class ValueColumn<T>(string name, string unit, Func<ScanRow, T> get, Action<RowDraft, T> set)
     : ScanColumn(new DataField<T>(name, false), unit) where T : struct
 {
+    public override object? Value(ScanRow row) => get(row);
+
     internal override Task WriteAsync(ParquetRowGroupWriter writer, IReadOnlyList<ScanRow> rows, CancellationToken ct) =>
         writer.WriteAsync<T>(Field, rows.Select(get).ToArray(), null, null, ct);
 
@@ -30,6 +34,8 @@ internal sealed class ValueColumn<T>(string name, string unit, Func<ScanRow, T> 
 internal sealed class NullableColumn<T>(string name, string unit, Func<ScanRow, T?> get, Action<RowDraft, T?> set)
     : ScanColumn(new DataField<T?>(name), unit) where T : struct
 {
+    public override object? Value(ScanRow row) => get(row);
+
     internal override Task WriteAsync(ParquetRowGroupWriter writer, IReadOnlyList<ScanRow> rows, CancellationToken ct) =>
         writer.WriteAsync<T>(Field, rows.Select(get).ToArray(), null, null, ct);
 
@@ -44,6 +50,8 @@ internal sealed class NullableColumn<T>(string name, string unit, Func<ScanRow, 
 internal sealed class TextColumn(string name, string unit, Func<ScanRow, string?> get, Action<RowDraft, string?> set)
     : ScanColumn(new DataField<string>(name, true), unit)
 {
+    public override object? Value(ScanRow row) => get(row);
+
     internal override Task WriteAsync(ParquetRowGroupWriter writer, IReadOnlyList<ScanRow> rows, CancellationToken ct) =>
         writer.WriteAsync(Field, rows.Select(get).ToArray()!, null);
 
@@ -58,6 +66,8 @@ internal sealed class TextColumn(string name, string unit, Func<ScanRow, string?
 /// <summary>The solver's warm-start payload as little-endian doubles.</summary>
 internal sealed class SolverStateColumn() : ScanColumn(new DataField<byte[]>("solver_state", true), "")
 {
+    public override object? Value(ScanRow row) => row.Result.SolverState;
+
     internal override Task WriteAsync(ParquetRowGroupWriter writer, IReadOnlyList<ScanRow> rows, CancellationToken ct) =>
         writer.WriteAsync(Field, rows.Select(r => r.Result.SolverState is { } s
             ? System.Runtime.InteropServices.MemoryMarshal.AsBytes(s.AsSpan()).ToArray() : null).ToArray()!, null);
