@@ -55,7 +55,7 @@ public static class PhaseMap
             var heat = plot.Add.Heatmap(z);
             heat.Colormap = new ScottPlot.Colormaps.Viridis();
             heat.NaNCellColor = Colors.Transparent;
-            heat.Extent = new CoordinateRect(xs.Edges[0], xs.Edges[^1], ys.Edges[0], ys.Edges[^1]);
+            heat.Rectangle = new CoordinateRect(xs.Edges[0], xs.Edges[^1], ys.Edges[0], ys.Edges[^1]);
             var bar = plot.Add.ColorBar(heat);
             bar.Label = colorBy;
         }
