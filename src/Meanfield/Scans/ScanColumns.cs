@@ -1,0 +1,55 @@
+namespace Meanfield.Scans;
+
+/// <summary>The column list of a scan output, in file order.</summary>
+internal static class ScanColumns
+{
+    public static IReadOnlyList<ScanColumn> Build(ScanSchema s)
+    {
+        var c = new List<ScanColumn>
+        {
+            new ValueColumn<int>("point_id", "", r => r.PointId, (d, v) => d.PointId = v),
+            new ValueColumn<int>("shard", "", r => r.Shard, (d, v) => d.Shard = v),
+        };
+        for (int i = 0; i < s.AxisNames.Count; i++)
+        {
+            int k = i;
+            c.Add(new ValueColumn<double>("axis_" + s.AxisNames[k], "axis unit (see grid metadata)",
+                                          r => r.AxisValues[k], (d, v) => d.Axes[k] = v));
+        }
+        for (int i = 0; i < s.ParameterNames.Count; i++)
+        {
+            int k = i;
+            string name = s.ParameterNames[k];
+            c.Add(new NullableColumn<double>("param_" + name, "model unit", r => r.Parameter(name), (d, v) => d.Parameters[k] = v));
+        }
+        c.Add(new ValueColumn<double>("temperature_K", "K", r => r.TemperatureK, (d, v) => d.TemperatureK = v));
+        c.Add(new ValueColumn<bool>("converged", "", r => r.Result.Converged, (d, v) => d.Converged = v));
+        c.Add(new ValueColumn<int>("iterations", "", r => r.Result.Iterations, (d, v) => d.Iterations = v));
+        c.Add(new ValueColumn<double>("residual_norm", "", r => r.Result.ResidualNorm, (d, v) => d.ResidualNorm = v));
+        c.Add(new ValueColumn<double>("mu", "{E}", r => r.Result.Mu, (d, v) => d.Mu = v));
+        c.Add(new ValueColumn<double>("free_energy", "{E} per cell", r => r.Result.FreeEnergy, (d, v) => d.FreeEnergy = v));
+        for (int i = 0; i < s.GroupNames.Count; i++)
+        {
+            int k = i;
+            string g = s.GroupNames[k];
+            c.Add(new ValueColumn<double>("r_" + g, "", r => r.Result.Groups[k].R, (d, v) => d.R[k] = v));
+            c.Add(new ValueColumn<double>("lambda_" + g, "{E}", r => r.Result.Groups[k].Lambda, (d, v) => d.Lambda[k] = v));
+            c.Add(new ValueColumn<double>("n_f_" + g, "electrons per site", r => r.Result.Groups[k].Nf, (d, v) => d.Nf[k] = v));
+        }
+        c.Add(new NullableColumn<double>("direct_gap", "{E}", r => r.Result.DirectGap, (d, v) => d.DirectGap = v));
+        c.Add(new NullableColumn<double>("indirect_gap", "{E}", r => r.Result.IndirectGap, (d, v) => d.IndirectGap = v));
+        c.Add(new NullableColumn<double>("dos_fermi_total", "states per {E} per cell", r => r.Result.DosFermiTotal, (d, v) => d.DosFermiTotal = v));
+        c.Add(new NullableColumn<double>("dos_fermi_correlated", "states per {E} per cell", r => r.Result.DosFermiCorrelated, (d, v) => d.DosFermiCorrelated = v));
+        c.Add(new NullableColumn<int>("node_count", "", r => r.Result.NodeCount, (d, v) => d.NodeCount = v));
+        c.Add(new NullableColumn<double>("max_node_offset", "{E}", r => r.Result.MaxNodeOffset, (d, v) => d.MaxNodeOffset = v));
+        c.Add(new NullableColumn<int>("net_chirality", "", r => r.Result.NetChirality, (d, v) => d.NetChirality = v));
+        c.Add(new NullableColumn<int>("abs_chirality", "", r => r.Result.AbsChirality, (d, v) => d.AbsChirality = v));
+        c.Add(new NullableColumn<double>("gamma_mJ_per_mol_K2", "mJ mol^-1 K^-2", r => r.Result.GammaMilliJoulePerMolK2, (d, v) => d.Gamma = v));
+        c.Add(new NullableColumn<double>("beta_mJ_per_mol_K4", "mJ mol^-1 K^-4", r => r.Result.BetaMilliJoulePerMolK4, (d, v) => d.Beta = v));
+        c.Add(new TextColumn("phase", "", r => r.Result.Phase, (d, v) => d.Phase = v));
+        c.Add(new ValueColumn<double>("wall_seconds", "s", r => r.WallSeconds, (d, v) => d.WallSeconds = v));
+        c.Add(new ValueColumn<bool>("warm_started", "", r => r.WarmStarted, (d, v) => d.WarmStarted = v));
+        if (s.IncludeSolverState) c.Add(new SolverStateColumn());
+        return c;
+    }
+}

@@ -1,0 +1,63 @@
+using System.Globalization;
+
+namespace Meanfield.Scans;
+
+/// <summary>
+/// The output of one scan run: the final Parquet file and, while running, a directory of chunk files
+/// ("out.parquet.parts/chunk-00042.parquet"), each a complete Parquet file written atomically. An interrupted run
+/// leaves readable chunks and no half-written file; the final file appears only by an atomic rename.
+/// </summary>
+public sealed class ScanOutput(string path, ScanProvenance provenance)
+{
+    public string Path { get; } = System.IO.Path.GetFullPath(path);
+    public ScanProvenance Provenance { get; } = provenance;
+    public string PartsDirectory => Path + ".parts";
+
+    private int _nextChunk;
+
+    public bool HasChunks => Directory.Exists(PartsDirectory) && ChunkFiles().Length > 0;
+
+    public string[] ChunkFiles() => Directory.Exists(PartsDirectory)
+        ? Directory.GetFiles(PartsDirectory, "chunk-*.parquet").Order(StringComparer.Ordinal).ToArray()
+        : [];
+
+    /// <summary>Rows of all chunk files, after checking that they belong to this scan and shard.</summary>
+    internal async Task<(ScanSchema? Schema, List<ScanRow> Rows)> LoadChunksAsync(ShardSpec shard, CancellationToken ct)
+    {
+        ScanSchema? schema = null;
+        var rows = new List<ScanRow>();
+        foreach (var file in ChunkFiles())
+        {
+            var table = await ScanParquet.ReadAsync(file, ct);
+            if (table.ScanSha256 != Provenance.ScanSha256 || table.ModelSha256 != Provenance.ModelSha256)
+                throw new ScanError($"{file} belongs to a different scan or model (hash mismatch); delete {PartsDirectory} to start over");
+            if (table.Metadata.GetValueOrDefault(ScanMetadata.Shard) != shard.ToString())
+                throw new ScanError($"{file} was written for shard {table.Metadata.GetValueOrDefault(ScanMetadata.Shard)}, not {shard}");
+            schema ??= table.Schema;
+            if (!schema.SameLayout(table.Schema)) throw new ScanError($"{file}: columns differ from the other chunks");
+            rows.AddRange(table.Rows);
+            int n = int.Parse(System.IO.Path.GetFileNameWithoutExtension(file)["chunk-".Length..], CultureInfo.InvariantCulture);
+            _nextChunk = Math.Max(_nextChunk, n + 1);
+        }
+        return (schema, rows);
+    }
+
+    internal async Task WriteChunkAsync(ScanSchema schema, IReadOnlyList<ScanRow> rows,
+                                        IReadOnlyDictionary<string, string> metadata, CancellationToken ct)
+    {
+        Directory.CreateDirectory(PartsDirectory);
+        string file = System.IO.Path.Combine(PartsDirectory, FormattableString.Invariant($"chunk-{_nextChunk++:D5}.parquet"));
+        await ScanParquet.WriteAsync(file, schema.WithSolverState(true), rows, metadata, ct);
+    }
+
+    /// <summary>Writes the final file (rows sorted by point id) atomically and removes the chunk directory.</summary>
+    internal async Task FinalizeAsync(ScanSchema schema, IReadOnlyList<ScanRow> rows,
+                                      IReadOnlyDictionary<string, string> metadata, CancellationToken ct)
+    {
+        var dir = System.IO.Path.GetDirectoryName(Path);
+        if (!string.IsNullOrEmpty(dir)) Directory.CreateDirectory(dir);
+        var sorted = rows.OrderBy(r => r.PointId).Select(r => r with { Result = r.Result with { SolverState = null } }).ToArray();
+        await ScanParquet.WriteAsync(Path, schema.WithSolverState(false), sorted, metadata, ct);
+        if (Directory.Exists(PartsDirectory)) Directory.Delete(PartsDirectory, recursive: true);
+    }
+}

@@ -1,0 +1,68 @@
+using Parquet;
+
+namespace Meanfield.Scans;
+
+/// <summary>
+/// Reads and writes scan Parquet files. Writes are atomic (temporary file, then rename) because a truncated Parquet
+/// file cannot be read at all.
+/// </summary>
+public static class ScanParquet
+{
+    /// <summary>Rows per row group in merged files.</summary>
+    public const int RowGroupSize = 100_000;
+
+    public static async Task WriteAsync(string path, ScanSchema schema, IReadOnlyList<ScanRow> rows,
+                                        IReadOnlyDictionary<string, string> metadata, CancellationToken ct = default)
+    {
+        string tmp = path + ".tmp";
+        try
+        {
+            await using (var stream = new FileStream(tmp, FileMode.Create, FileAccess.Write, FileShare.None))
+            {
+                await using (var writer = await ParquetWriter.CreateAsync(schema.Parquet, stream, cancellationToken: ct))
+                {
+                    writer.CustomMetadata = new Dictionary<string, string>(metadata);
+                    for (int start = 0; start < rows.Count; start += RowGroupSize)
+                    {
+                        var slice = rows.Skip(start).Take(RowGroupSize).ToArray();
+                        foreach (var r in slice) schema.Check(r);
+                        using var group = writer.CreateRowGroup();
+                        foreach (var column in schema.Columns) await column.WriteAsync(group, slice, ct);
+                    }
+                }
+                stream.Flush(flushToDisk: true);
+            }
+            File.Move(tmp, path, overwrite: true);
+        }
+        catch
+        {
+            TryDelete(tmp);
+            throw;
+        }
+    }
+
+    public static async Task<ScanTable> ReadAsync(string path, CancellationToken ct = default)
+    {
+        await using var stream = File.OpenRead(path);
+        await using var reader = await ParquetReader.CreateAsync(stream, cancellationToken: ct);
+        var metadata = new Dictionary<string, string>(reader.CustomMetadata ?? new Dictionary<string, string>());
+        if (!metadata.TryGetValue(ScanMetadata.Schema, out var schemaJson))
+            throw new ScanError($"{path}: not a scan output (no '{ScanMetadata.Schema}' metadata)");
+        var schema = ScanSchema.FromJson(schemaJson);
+        var rows = new List<ScanRow>();
+        for (int g = 0; g < reader.RowGroupCount; g++)
+        {
+            using var group = reader.OpenRowGroupReader(g);
+            var drafts = new RowDraft[group.RowCount];
+            for (int i = 0; i < drafts.Length; i++) drafts[i] = new RowDraft(schema);
+            foreach (var column in schema.Columns) await column.ReadAsync(group, drafts, ct);
+            rows.AddRange(drafts.Select(d => d.Build()));
+        }
+        return new ScanTable(path, schema, rows, metadata);
+    }
+
+    internal static void TryDelete(string path)
+    {
+        try { if (File.Exists(path)) File.Delete(path); } catch (IOException) { } catch (UnauthorizedAccessException) { }
+    }
+}
