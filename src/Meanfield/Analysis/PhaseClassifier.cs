@@ -6,8 +6,9 @@ namespace Meanfield.Analysis;
 /// <summary>
 /// Labels a solution. Rules, applied in order (energies in the model's unit, tolerances in <see cref="Tolerances"/>):
 /// 1. all boson amplitudes r = 0 -> Decoupled;
-/// 2. indirect gap &gt; GapTolerance -> KondoInsulator (common practice: a Kondo insulator is a band insulator of the
-///    renormalized bands);
+/// 2. indirect gap &gt; GapTolerance on the mesh and no band touching found by the node search -> KondoInsulator
+///    (common practice: a Kondo insulator is a band insulator of the renormalized bands; a coarse mesh can miss a
+///    node and report a positive gap, so found nodes take precedence);
 /// 3. the node search reports a metal (bands n_occ - 1 and n_occ overlap, or mu cuts a band), or the DOS at the
 ///    Fermi level exceeds DosTolerance while no node sits at mu -> HeavyMetal;
 /// 4. a nodal line at mu -> NodalLine;
@@ -23,7 +24,7 @@ public static class PhaseClassifier
     {
         var t = tol ?? new Tolerances();
         if (decoupled) return new(Phase.Decoupled, "all boson amplitudes vanish (r = 0)");
-        if (gap.Indirect > t.GapTolerance)
+        if (gap.Indirect > t.GapTolerance && (nodes is null || nodes.Nodes.Count == 0))
             return new(Phase.KondoInsulator, $"indirect gap {gap.Indirect:G4} > {t.GapTolerance:G3}");
         var atMu = nodes?.Nodes.Where(n => Math.Abs(n.EnergyOffset) < t.EnergyTolerance).ToList() ?? [];
         if (nodes is { IsMetal: true })

@@ -19,7 +19,6 @@ public static class BerryCurvature
         var lattice = model.Lattice;
         if (lattice.Dimension < 2) throw new ArgumentException("Berry curvature needs a lattice with momentum.");
         if (n1 < 1 || n2 < 1) throw new ArgumentOutOfRangeException(nameof(n1), "grid divisions must be positive");
-        if (occupied < 1 || occupied >= source.Size) throw new ArgumentOutOfRangeException(nameof(occupied));
         if (lattice.Dimension == 2 && (origin.Z != 0 || span1.Z != 0 || span2.Z != 0))
             throw new ArgumentException("A plane of a 2D lattice must have zero third reduced components.");
         Vec3 c1 = lattice.Cartesian(span1.X, span1.Y, span1.Z), c2 = lattice.Cartesian(span2.X, span2.Y, span2.Z);
@@ -27,6 +26,7 @@ public static class BerryCurvature
         if (!(normal.Norm > 1e-10 * Math.Max(c1.Norm * c2.Norm, 1e-300)))
             throw new ArgumentException("The plane's spanning vectors are parallel or zero: it does not cut the zone.");
         bool torus = IsInteger(span1) && IsInteger(span2);
+        if (occupied < 1 || occupied >= source.Size) throw new ArgumentOutOfRangeException(nameof(occupied));
 
         int n = source.Size, block = n * occupied, rows = n1 + 1, cols = n2 + 1;
         var vecs = new Complex[rows * cols * block];
