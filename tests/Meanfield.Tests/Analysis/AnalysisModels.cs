@@ -6,7 +6,7 @@ using Meanfield.Lattices;
 namespace Meanfield.Tests.Analysis;
 
 /// <summary>Small textbook lattice models built by hand for the analysis tests (parameters are invented numbers).</summary>
-public static class AnalysisModels
+internal static class AnalysisModels
 {
     private static readonly Complex I = Complex.ImaginaryOne;
 
