@@ -22,6 +22,7 @@ public sealed class SaddlePointSolver
     private readonly IStateSum _sum;
     private readonly GroupInfo[] _groups;
     private int _passes;
+    private readonly double _energyScale;
 
     private sealed record GroupInfo(string Name, int Shells, double Q, double Level, int Degeneracy);
 
@@ -46,6 +47,9 @@ public sealed class SaddlePointSolver
                 throw new ArgumentException($"shell group '{names[g]}': the constraint Q = {q} cannot be met by N = {shells[0].Degeneracy} f states and a boson (need 0 < Q < N)");
             _groups[g] = new GroupInfo(names[g], shells.Count, q, shells[0].Level, shells[0].Degeneracy);
         }
+        _energyScale = 1.0;
+        foreach (var s in model.Shells) _energyScale = Math.Max(_energyScale, Math.Abs(s.Level));
+        foreach (var h in model.Hoppings) _energyScale = Math.Max(_energyScale, h.Amplitude.MaxAbs());
         if (model.ElectronsPerCell < 0 || model.ElectronsPerCell > model.StatesPerCell)
             throw new ArgumentException($"{model.ElectronsPerCell} electrons per cell is impossible: the cell has {model.StatesPerCell} states");
         _sum = model.IsMomentumFree
@@ -63,21 +67,29 @@ public sealed class SaddlePointSolver
     private (double[] residual, BandFilling filling) EvaluateLog(double[] y)
     {
         var (res, fill) = Evaluate(ToAmplitudeVector(y));
-        for (int g = 0; g < G; g++) res[G + g] /= Math.Exp(y[g]);
+        for (int g = 0; g < G; g++) res[G + g] /= Math.Exp(y[g]) * _energyScale;
         return (res, fill);
     }
 
+    /// <summary>y = (ln r, lambda / E0) to x = (r, lambda); E0 makes the multiplier and the residuals dimensionless.</summary>
     private double[] ToAmplitudeVector(double[] y)
     {
-        var x = (double[])y.Clone();
-        for (int g = 0; g < G; g++) x[g] = Math.Exp(y[g]);
+        var x = new double[y.Length];
+        for (int g = 0; g < G; g++) { x[g] = Math.Exp(y[g]); x[G + g] = y[G + g] * _energyScale; }
         return x;
+    }
+
+    private double[] ToIterationVector(double[] x)
+    {
+        var y = new double[x.Length];
+        for (int g = 0; g < G; g++) { y[g] = Math.Log(Math.Max(x[g], 1e-300)); y[G + g] = x[G + g] / _energyScale; }
+        return y;
     }
 
     private double[] Unscaled(double[] y, double[] scaledResidual)
     {
         var res = (double[])scaledResidual.Clone();
-        for (int g = 0; g < G; g++) res[G + g] *= Math.Exp(y[g]);
+        for (int g = 0; g < G; g++) res[G + g] *= Math.Exp(y[g]) * _energyScale;
         return res;
     }
 
@@ -121,7 +133,7 @@ public sealed class SaddlePointSolver
         var j = new double[n * n];
         for (int c = 0; c < n; c++)
         {
-            double h = c < G ? 1e-6 : 1e-7 * Math.Max(1.0, Math.Abs(x[c]));
+            double h = 1e-6 * Math.Max(1.0, Math.Abs(x[c]));
             var xp = (double[])x.Clone(); xp[c] += h;
             var (rp, _) = EvaluateLog(xp);
             for (int r = 0; r < n; r++) j[r * n + c] = (rp[r] - res[r]) / h;
@@ -165,8 +177,7 @@ public sealed class SaddlePointSolver
 
     private Attempt Iterate(double[] x0, CancellationToken ct)
     {
-        var y = (double[])x0.Clone();
-        for (int g = 0; g < G; g++) y[g] = Math.Log(Math.Max(x0[g], 1e-300));
+        var y = ToIterationVector(x0);
         var (res, fill) = EvaluateLog(y);
         double[]? jac = null; bool fresh = false;
         int n = y.Length;
@@ -216,6 +227,8 @@ public sealed class SaddlePointSolver
                 for (int c = 0; c < n; c++) jac[r * n + c] += u * step[c];
             }
             fresh = false;
+            // Broyden keeps its Jacobian only while it pays: a step that did not halve the residual rebuilds it.
+            if (Norm(rn) > 0.5 * norm0) jac = null;
             y = yn; res = rn; fill = fn;
         }
         var final = Unscaled(y, res);
