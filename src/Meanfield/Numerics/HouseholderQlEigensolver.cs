@@ -12,7 +12,8 @@ namespace Meanfield.Numerics;
 /// </summary>
 /// <remarks>
 /// Wilkinson &amp; Reinsch, Handbook for Automatic Computation vol. II (1971), tred2/tql2 (complex form: htridi/htribk);
-/// Golub &amp; Van Loan, Matrix Computations, 4th ed. (2013), Alg. 8.3.1 and Sec. 8.3.5.
+/// Golub &amp; Van Loan, Matrix Computations, 4th ed. (2013), Sec. 8.3 (Householder tridiagonalization, symmetric QR;
+/// algorithm numbers from memory).
 /// Entries are assumed within about 1e-150..1e150 in magnitude (plain sqrt(a^2+b^2) in the rotations).
 /// </remarks>
 public sealed class HouseholderQlEigensolver : IHermitianEigensolver
