@@ -19,9 +19,6 @@ internal static unsafe partial class LapackNative
 
         [LibraryImport(OpenBlas, EntryPoint = "openblas_set_num_threads")]
         internal static partial void SetNumThreads(int threads);
-
-        [LibraryImport(OpenBlas, EntryPoint = "openblas_get_config")]
-        internal static partial byte* GetConfig();
     }
 
     internal static partial class FromReferenceLapack

@@ -176,4 +176,13 @@ public class HermitianEigensolverTests
         Assert.Equal(first.Values, again.Values);
         Assert.Equal(first.Vectors, again.Vectors);
     }
+
+    /// <summary>A NaN entry must end in a clear error, not an endless QL loop or silent garbage.</summary>
+    [Fact]
+    public void NaNInput_ThrowsInsteadOfLooping()
+    {
+        var a = RandomHermitian(6, 8);
+        a[2 * 6 + 3] = a[3 * 6 + 2] = new Complex(double.NaN, 0);
+        Assert.Throws<InvalidOperationException>(() => EigenChecks.Solve(new HouseholderQlEigensolver(6), a));
+    }
 }
