@@ -125,6 +125,10 @@ public class ExpressionParserTests
     }
 
     [Fact]
+    public void Deep_nesting_is_an_error_not_a_crash() =>
+        Assert.Contains("nested too deeply", Assert.Throws<ExpressionException>(() => ExpressionParser.Parse(new string('(', 5000) + "1" + new string(')', 5000))).Message);
+
+    [Fact]
     public void Overflow_is_an_error() =>
         Assert.Contains("finite", Assert.Throws<ExpressionException>(() => Eval("exp(1000)")).Message);
 

@@ -201,6 +201,10 @@ public class MalformedModelTests
         Check(Break("V = 50", "pi = 3"), "pi = 3", "parameters.pi", says: "reserved");
 
     [Fact]
+    public void Not_a_number_is_rejected() =>
+        Check(Break("constant = 4.0", "constant = nan"), "constant = nan", "lattice.constant", says: "finite number");
+
+    [Fact]
     public void Wrong_value_type() =>
         Check(Break("orbitals = [\"d\"]", "orbitals = \"d\""), "orbitals = \"d\"", "site[1].orbitals", says: "expected an array");
 
