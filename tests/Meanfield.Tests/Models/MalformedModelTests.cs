@@ -205,6 +205,10 @@ public class MalformedModelTests
         Check(Break("constant = 4.0", "constant = nan"), "constant = nan", "lattice.constant", says: "finite number");
 
     [Fact]
+    public void Site_position_is_required_without_a_default_basis() =>
+        Check(Break("position = [0, 0, 0]\n", ""), "[[site]]", "site[1].position", says: "missing position");
+
+    [Fact]
     public void Wrong_value_type() =>
         Check(Break("orbitals = [\"d\"]", "orbitals = \"d\""), "orbitals = \"d\"", "site[1].orbitals", says: "expected an array");
 

@@ -159,4 +159,37 @@ public class ModelBinderTests
         Assert.Contains(lines, l => l.StartsWith("lattice: SimpleCubic, a = 4 angstrom"));
         Assert.Contains(lines, l => l.Contains("A:f: N = 2, Q = 1, eps_f = -200 meV"));
     }
+
+    [Theory]
+    [InlineData("simple-cubic", LatticeKind.SimpleCubic, 3)]
+    [InlineData("body-centred-cubic", LatticeKind.BodyCentredCubic, 3)]
+    [InlineData("face-centred-cubic", LatticeKind.FaceCentredCubic, 3)]
+    [InlineData("square", LatticeKind.Square, 2)]
+    [InlineData("semi-elliptic-dos", LatticeKind.SemiEllipticDos, 0)]
+    [InlineData("flat-dos", LatticeKind.FlatDos, 0)]
+    public void Every_lattice_kind_name_binds(string name, LatticeKind kind, int dimension)
+    {
+        bool dos = dimension == 0;
+        var toml = $$"""
+            [model]
+            electrons_per_cell = 1
+            [lattice]
+            kind = "{{name}}"
+            {{(dos ? "half_width = 500" : "constant = 3.5")}}
+            [[site]]
+            name = "A"
+            position = [0, 0, 0]
+            orbitals = ["c"]
+            [site.shell]
+            level = -100
+            [[hybridization]]
+            from = "A:c"
+            to = "A:f"
+            amplitude = 50
+            """;
+        var m = ModelText.Bind(toml);
+        Assert.Equal(kind, m.Lattice.Kind);
+        Assert.Equal(dimension, m.Lattice.Dimension);
+        Assert.Equal(dos ? 500 : 0, m.DosHalfWidth);
+    }
 }
