@@ -70,13 +70,21 @@ public static class ExpressionParser
             }
         }
 
+        private int _depth;
+
+        // Every level of nesting passes through here; the cap keeps absurd input from overflowing the stack.
         private Expression Unary()
         {
             SkipSpace();
             int at = Pos;
-            if (Accept('-')) return new UnaryExpression(Unary(), at);
-            if (Accept('+')) return Unary();
-            return Power();
+            if (++_depth > 100) throw new ExpressionException("expression is nested too deeply", at);
+            try
+            {
+                if (Accept('-')) return new UnaryExpression(Unary(), at);
+                if (Accept('+')) return Unary();
+                return Power();
+            }
+            finally { _depth--; }
         }
 
         private Expression Power()

@@ -71,6 +71,11 @@ public static class ModelBinder
         foreach (var p in spec.Parameters)
         {
             var expression = replaced.GetValueOrDefault(p.Name) ?? p.Value;
+            foreach (var (used, offset) in expression.Tree.Names())
+                if (!env.ContainsKey(used) && names.Contains(used))
+                    throw new ModelError(expression.Location.Shift(offset), expression.Field, used == p.Name
+                        ? $"'{used}' refers to itself"
+                        : $"'{used}' is defined after '{p.Name}': a parameter may only use the parameters above it");
             double v = expression.EvaluateReal(env);
             env[p.Name] = v;
             list.Add(new(p.Name, v));

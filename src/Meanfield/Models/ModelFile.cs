@@ -190,6 +190,13 @@ public static class ModelFile
                 orbitals.Add(o);
             }
         ShellSpec? shell = null;
+        if (t.Entry("shell") is { Value: TomlTableArray or TomlList } many)
+        {
+            var items = many.Value is TomlTableArray a ? a.Tables.Cast<TomlNode>().ToList() : ((TomlList)many.Value).Items.ToList();
+            throw new ModelError(items.Count > 1 ? items[1].Location : many.Value.Location, t.Field("shell"), items.Count > 1
+                ? $"site '{name}' has more than one shell: a site carries at most one correlated shell"
+                : "write the shell as one [site.shell] table: a site carries at most one correlated shell");
+        }
         if (t.Table("shell", ShellKeys) is { } sh)
         {
             var s = sh;

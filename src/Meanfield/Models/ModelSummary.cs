@@ -44,7 +44,7 @@ public static class ModelSummary
         foreach (var (kind, count) in CountTerms(model)) lines.Add($"  {kind}: {count}");
         if (model.Solver is { } hints)
             lines.Add(string.Format(ci, "solver hints: temperature {0}, mesh {1}, shifted {2}, tolerance {3}, max iterations {4}",
-                hints.TemperatureText ?? "-", hints.Mesh?.ToString(ci) ?? "-", hints.Shifted?.ToString() ?? "-",
+                hints.TemperatureText ?? "-", hints.Mesh?.ToString(ci) ?? "-", (hints.Shifted is bool b ? (b ? "yes" : "no") : "-"),
                 hints.Tolerance?.ToString("G3", ci) ?? "-", hints.MaxIterations?.ToString(ci) ?? "-"));
         return lines;
     }

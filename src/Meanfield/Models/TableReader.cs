@@ -83,16 +83,19 @@ internal sealed class TableReader
     public static double AsNumber(TomlNode node, string field) => node switch
     {
         TomlScalar { Value: long v } => v,
-        TomlScalar { Value: double v } => v,
+        TomlScalar { Value: double v } => Finite(v, node, field),
         _ => throw WrongType(node, field, "a number"),
     };
+
+    private static double Finite(double v, TomlNode node, string field) =>
+        double.IsFinite(v) ? v : throw new ModelError(node.Location, field, $"expected a finite number, found {v}");
 
     /// <summary>A TOML number, or a string holding an expression.</summary>
     public static ModelExpression AsExpression(TomlNode node, string field) => node switch
     {
         TomlScalar { Value: string s, IsDate: false } sc => ModelExpression.Parse(s, field, sc.Location.Shift(sc.ContentOffset)),
         TomlScalar { Value: long v } => ModelExpression.Constant(v, field, node.Location),
-        TomlScalar { Value: double v } => ModelExpression.Constant(v, field, node.Location),
+        TomlScalar { Value: double v } => ModelExpression.Constant(Finite(v, node, field), field, node.Location),
         _ => throw WrongType(node, field, "a number or an expression in quotes"),
     };
 
