@@ -164,7 +164,8 @@ public sealed class SaddlePointSolver
         {
             var attempt = Iterate(start, cancellation);
             if (best is null || (attempt.Converged && !best.Converged) || (!best.Converged && attempt.Residual < best.Residual)) best = attempt;
-            if (attempt.Converged) break;
+            // A start that flows to r = 0 speaks for all: smaller starting amplitudes only flow there faster.
+            if (attempt.Converged || attempt.Collapsed) break;
         }
         var result = Finish(best!);
         return result with { WallSeconds = clock.Elapsed.TotalSeconds, ZonePasses = _passes };
@@ -182,13 +183,18 @@ public sealed class SaddlePointSolver
         double[]? jac = null; bool fresh = false;
         int n = y.Length;
         double collapse = Math.Log(_settings.CollapseThreshold);
+        var history = new List<double>();
         for (int it = 0; it < _settings.MaxIterations; it++)
         {
             ct.ThrowIfCancellationRequested();
             if (MaxAbs(Unscaled(y, res)) < _settings.Tolerance && MaxAbs(res) < 1e3 * _settings.Tolerance)
                 return new(ToAmplitudeVector(y), Unscaled(y, res), fill, it, true, false, false);
-            bool collapsed = true;
-            for (int g = 0; g < G; g++) collapsed &= y[g] < collapse;
+            // Collapse: r below the threshold, or r small and the residual no longer falling (no r > 0 solution:
+            // the scaled equations tend to constants as r -> 0, so the iteration creeps towards 0 on a plateau).
+            bool collapsed = true, small = true;
+            for (int g = 0; g < G; g++) { collapsed &= y[g] < collapse; small &= Math.Exp(2 * y[g]) < 1e-3 * _groups[g].Q; }
+            history.Add(Norm(res));
+            if (small && history.Count > 4 && history[^1] > 0.7 * history[^5]) collapsed = true;
             if (collapsed) return new(ToAmplitudeVector(y), Unscaled(y, res), fill, it, false, true, false);
             if (jac is null) { jac = Jacobian(y, res); fresh = true; }
             var rhs = new double[n];
@@ -250,6 +256,13 @@ public sealed class SaddlePointSolver
             notes.Add("r collapsed to 0 but no decoupled solution exists at this electron count.");
         }
         var kondo = Build(amp, a.Filling, a.Res, a.Iterations, a.Converged, SaddlePointBranch.Kondo, decoupled?.FreeEnergy);
+        bool flowingToZero = true;
+        for (int g = 0; g < G; g++) flowingToZero &= amp.R[g] * amp.R[g] < 1e-3 * _groups[g].Q;
+        if (!a.Converged && flowingToZero && decoupled is not null)
+        {
+            notes.Add($"no coherent solution: every start flowed towards r = 0 (last r^2 = {amp.R[0] * amp.R[0]:G3}); the decoupled (local-moment) solution is reported. Near the mean-field Kondo temperature this also happens when the k-mesh cannot resolve the small Kondo scale: try a larger --mesh.");
+            return decoupled with { Iterations = a.Iterations, Notes = notes };
+        }
         if (!a.Converged)
         {
             notes.Add(a.Stalled

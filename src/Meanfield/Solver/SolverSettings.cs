@@ -19,7 +19,7 @@ public sealed record SolverSettings
     /// <summary>Starting amplitudes (a neighbouring scan point's solution); null for the built-in guesses.</summary>
     public MeanFieldAmplitudes? InitialGuess { get; init; }
     /// <summary>Below this r every group is taken to have collapsed to the decoupled (local-moment) solution.</summary>
-    public double CollapseThreshold { get; init; } = 1e-5;
+    public double CollapseThreshold { get; init; } = 1e-3;
 
     public void Validate()
     {
