@@ -13,7 +13,7 @@ public static class KondoScaleCommand
         var set = CommonOptions.Set();
         var mesh = CommonOptions.Mesh();
         var start = new Option<string?>("--from") { Description = "Starting (low) temperature, e.g. 0.5K (default: the model's [solver] temperature, else 1e-3 of the energy unit)" };
-        var tolerance = new Option<double>("--relative-tolerance") { Description = "Bisection stops at this relative width", DefaultValueFactory = _ => 1e-3 };
+        var tolerance = new Option<double>("--relative-tolerance") { Description = "Bisection stops at this relative width", DefaultValueFactory = _ => 1e-5 };
         var command = new Command("kondo-scale", "Find the mean-field Kondo temperature T_K^MF (where r -> 0)") { model, set, mesh, start, tolerance };
         command.SetAction(parse =>
         {
@@ -21,16 +21,15 @@ public static class KondoScaleCommand
             var bound = CommonOptions.LoadModel(parse.GetValue(model)!, CommonOptions.ParseSets(parse.GetValue(set)));
             var baseSettings = CommonOptions.Settings(bound, parse.GetValue(start), parse.GetValue(mesh));
             double t0 = baseSettings.Temperature > 0 ? baseSettings.Temperature : 1e-3;
-            var progress = new Progress<string>(s => o.WriteLine("  " + s));
-            var result = KondoTemperature.Find(
-                (t, guess) => new SaddlePointSolver(bound, baseSettings with { Temperature = t, InitialGuess = guess }).Solve(),
+            var result = KondoTemperature.FindFromStability(
+                t => new SaddlePointSolver(bound, baseSettings with { Temperature = t }).DecoupledStability()?.Min() ?? double.NaN,
                 t0, parse.GetValue(tolerance), progress: new SyncProgress(o));
             if (result.Temperature is not { } tk)
             {
                 parse.InvocationConfiguration.Error.WriteLine($"error: {result.Problem}");
                 return ExitCodes.NoAnswer;
             }
-            o.WriteLine($"T_K^MF = {tk:G6} {bound.Unit.Symbol()} = {tk * bound.Unit.Kelvins():G6} K  ({result.Trail.Count} solutions; a sharp transition only at mean field, a crossover in reality)");
+            o.WriteLine($"T_K^MF = {tk:G6} {bound.Unit.Symbol()} = {tk * bound.Unit.Kelvins():G6} K  (where the decoupled solution turns unstable; a sharp transition only at mean field, a crossover in reality)");
             return ExitCodes.Success;
         });
         return command;

@@ -42,6 +42,32 @@ public static class KondoTemperature
         return new KondoScaleResult(0.5 * (lowT + highT), trail, null);
     }
 
+    /// <summary>
+    /// T_K^MF from the stability of the decoupled solution: <paramref name="curvature"/>(T) is the smallest
+    /// dF/d(r^2) at r -&gt; 0 (<see cref="SaddlePointSolver.DecoupledStability"/>), negative below T_K^MF. Doubling from
+    /// <paramref name="start"/> brackets the sign change, bisection narrows it. One zone pass per temperature.
+    /// </summary>
+    public static KondoScaleResult FindFromStability(Func<double, double> curvature, double start, double relativeTolerance = 1e-6,
+                                                     int maxDoublings = 60, IProgress<string>? progress = null)
+    {
+        double lowT = start, c0 = curvature(start);
+        if (!(c0 < 0)) return new KondoScaleResult(null, [], $"the decoupled solution is stable already at the starting temperature {start:G4} (dF/dr^2 = {c0:G4}); start lower");
+        double highT = double.NaN;
+        for (int i = 0; i < maxDoublings; i++)
+        {
+            double t = lowT * 2, c = curvature(t);
+            progress?.Report($"T = {t:G6}: dF/dr^2 = {c:G6}");
+            if (c < 0) lowT = t; else { highT = t; break; }
+        }
+        if (double.IsNaN(highT)) return new KondoScaleResult(null, [], "the decoupled solution stayed unstable up to the largest temperature tried");
+        while (highT - lowT > relativeTolerance * lowT)
+        {
+            double t = 0.5 * (lowT + highT), c = curvature(t);
+            if (c < 0) lowT = t; else highT = t;
+        }
+        return new KondoScaleResult(0.5 * (lowT + highT), [], null);
+    }
+
     /// <summary>A converged solution on the Kondo branch with every r above the collapse threshold.</summary>
     public static bool IsCoherent(SaddlePoint sp) =>
         sp.Converged && sp.Branch == SaddlePointBranch.Kondo && sp.Groups.All(g => g.R > 1e-4);

@@ -303,6 +303,26 @@ public sealed class SaddlePointSolver
         : $"{_sum.Description}; T = 0 step occupations";
 
     /// <summary>
+    /// Stability of the decoupled solution: for every group, dF/d(r_g^2) per shell at r -&gt; 0 with lambda at its
+    /// decoupled value (energy unit). Negative means F falls as r grows: the coherent Kondo solution takes over. At mean
+    /// field the transition is continuous, so T_K^MF is where the smallest value crosses zero. To second order in the
+    /// hybridization each group's r enters alone (one f orbital per process), so the groups decouple here.
+    /// Null when no decoupled solution exists at this electron count.
+    /// </summary>
+    public double[]? DecoupledStability(double probe = 1e-6)
+    {
+        var decoupled = Decoupled();
+        if (decoupled is null) return null;
+        var x = new double[2 * G];
+        for (int g = 0; g < G; g++) { x[g] = probe; x[G + g] = decoupled.Amplitudes.Lambda[g]; }
+        var (res, _) = Evaluate(x);
+        var c = new double[G];
+        // res[G+g] = dF/dr per shell = 2 r dF/d(r^2)
+        for (int g = 0; g < G; g++) c[g] = res[G + g] / (2 * probe);
+        return c;
+    }
+
+    /// <summary>
     /// The r = 0 solution: f shells hold Q electrons each at a level pinned near mu, decoupled from the conduction band,
     /// which takes the remaining N_e - sum Q electrons. Per shell F_f = eps_f Q - T S_mf with the mean-field entropy
     /// S_mf = N ln N - Q ln Q - (N - Q) ln(N - Q). Null when the conduction band cannot hold the remaining electrons.

@@ -111,3 +111,46 @@ public class FlatBandLatticeTests(ITestOutputHelper output)
         }
     }
 }
+
+/// <summary>
+/// Mean-field Kondo temperature of the flat-band lattice at N = 2, Q = 1, N_e = 2 (conduction band half filled, mu = 0
+/// at r = 0, f level pinned at mu). Derived here: the r^2 coefficient of F at r -&gt; 0 is
+/// lambda_0 - N rho0 V^2 Int_0^D tanh(eps/2T)/eps d eps with lambda_0 = -eps_f, and the integral equals
+/// ln(2 e^gamma D / (pi T)) up to terms exponentially small in D/T (the BCS-type integral; Abrikosov, Gorkov &amp;
+/// Dzyaloshinskii (1963) sec. 33, from memory). Hence T_K^MF = (2 e^gamma / pi) D exp(pi eps_f / (N Delta)),
+/// Delta = pi rho0 V^2, i.e. T_K^MF / T_K = 2 e^gamma / pi = 1.1338659 with T_K = D exp(pi eps_f/(N Delta))
+/// (Read &amp; Newns 1983; Hewson (1993) ch. 7).
+/// </summary>
+public class FlatBandKondoTemperatureTests(ITestOutputHelper output)
+{
+    [Theory]
+    [InlineData(250.0, -300.0)]
+    [InlineData(200.0, -250.0)]
+    public void KondoTemperatureMatchesClosedForm(double v, double ef)
+    {
+        const double d = 1000;
+        var model = TestModels.LocalHybridization(LatticeKind.FlatDos, d, v, ef, 2, electrons: 2);
+        var result = KondoTemperature.FindFromStability(
+            t => new SaddlePointSolver(model, new SolverSettings { Temperature = t }).DecoupledStability()!.Min(), 0.05);
+        double delta = Math.PI * v * v / (2 * d);
+        double expected = 2 * Math.Exp(0.5772156649015329) / Math.PI * d * Math.Exp(Math.PI * ef / (2 * delta));
+        output.WriteLine($"V={v} ef={ef}: T_K^MF {result.Temperature:G8} vs closed form {expected:G8}");
+        Assert.NotNull(result.Temperature);
+        Assert.Equal(expected, result.Temperature!.Value, 1e-4 * expected);
+    }
+
+    [Fact]
+    public void CoherentSolutionExistsBelowAndCollapsesAbove()
+    {
+        const double d = 1000, v = 250, ef = -300;
+        var model = TestModels.LocalHybridization(LatticeKind.FlatDos, d, v, ef, 2, electrons: 2);
+        double tk = 2 * Math.Exp(0.5772156649015329) / Math.PI * d * Math.Exp(ef * d / (v * v));
+        var below = new SaddlePointSolver(model, new SolverSettings { Temperature = 0.8 * tk, DosNodes = 8192 }).Solve();
+        var above = new SaddlePointSolver(model, new SolverSettings { Temperature = 1.2 * tk, DosNodes = 8192 }).Solve();
+        output.WriteLine($"T = 0.8 T_K: {below.Branch} r = {below.Groups[0].R:G4}; T = 1.2 T_K: {above.Branch}");
+        Assert.Equal(SaddlePointBranch.Kondo, below.Branch);
+        Assert.True(below.Groups[0].R > 0.01);
+        Assert.Equal(SaddlePointBranch.Decoupled, above.Branch);
+        Assert.Equal(1.0, above.Groups[0].FOccupation, 12);
+    }
+}
