@@ -73,7 +73,7 @@ public sealed class HoppingTable
                 for (int i = 0; i < BasisSize; i++)
                 {
                     var t = Blocks[r][i * BasisSize + j];
-                    sb.Append(inv, $"{a,5}{b,5}{c,5}{i + 1,5}{j + 1,5}{t.Real,22:E14}{t.Imaginary,22:E14}\n");
+                    sb.Append(inv, $"{a,5}{b,5}{c,5}{i + 1,5}{j + 1,5}{t.Real,24:E14}{t.Imaginary,24:E14}\n");
                 }
         }
         return sb.ToString();

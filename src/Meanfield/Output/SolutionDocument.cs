@@ -37,7 +37,7 @@ public sealed record SolutionDocument
     public IReadOnlyList<string> Notes { get; init; } = [];
 
     public sealed record SiteEntry(string Name, int Shells, double R, double Lambda, double BareLevel,
-                                   double RenormalizedLevel, double NF, double Z);
+                                   double RenormalizedLevel, [property: JsonPropertyName("n_f")] double NF, double Z);
 
     public sealed record SamplingEntry(string Description, int? Mesh, bool? Shifted, string Occupations);
 
