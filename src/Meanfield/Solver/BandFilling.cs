@@ -12,9 +12,9 @@ public sealed record BandFilling(double Mu, double GrandPotential, double[] FOcc
     /// Finds mu with N(mu) = N_e: at T &gt; 0 by safeguarded Newton inside a bracket (N(mu) is monotone); at T = 0 by
     /// ordering the states and placing mu midway between the last occupied and the first empty one.
     /// </summary>
-    public static BandFilling Compute(StateTable table, double electrons, double temperature)
+    public static BandFilling Compute(StateTable table, double electrons, double temperature, double? muHint = null)
     {
-        double mu = temperature > 0 ? SolveMuThermal(table, electrons, temperature) : 0;
+        double mu = temperature > 0 ? SolveMuThermal(table, electrons, temperature, muHint) : 0;
         int partial = -1; double fraction = 0;
         var status = FermiLevelStatus.Regular;
         if (temperature <= 0) (mu, partial, fraction, status) = SolveMuGround(table, electrons);
@@ -36,22 +36,16 @@ public sealed record BandFilling(double Mu, double GrandPotential, double[] FOcc
         return new BandFilling(mu, omega, nf, slope, status);
     }
 
-    private static double SolveMuThermal(StateTable table, double electrons, double t)
+    private static double SolveMuThermal(StateTable table, double electrons, double t, double? hint)
     {
         double lo = double.PositiveInfinity, hi = double.NegativeInfinity;
         foreach (var e in table.Energy) { lo = Math.Min(lo, e); hi = Math.Max(hi, e); }
         lo -= 50 * t + 1e-9; hi += 50 * t + 1e-9;
-        double mu = 0.5 * (lo + hi);
+        double mu = hint is { } h && h > lo && h < hi ? h : 0.5 * (lo + hi);
         double tolerance = 1e-13 * Math.Max(1.0, electrons);
         for (int it = 0; it < 200; it++)
         {
-            double n = 0, dn = 0;
-            for (int s = 0; s < table.Count; s++)
-            {
-                double x = table.Energy[s] - mu, w = table.Weight[s];
-                n += w * Numerics.FermiDirac.Occupation(x, t);
-                dn += w * Numerics.FermiDirac.NegativeDerivative(x, t);
-            }
+            var (n, dn) = CountAndSlope(table, mu, t);
             double r = n - electrons;
             if (Math.Abs(r) < tolerance) return mu;
             if (r > 0) hi = mu; else lo = mu;
@@ -60,6 +54,30 @@ public sealed record BandFilling(double Mu, double GrandPotential, double[] FOcc
             if (hi - lo < 1e-15 * Math.Max(1.0, Math.Abs(mu))) return mu;
         }
         return mu;
+    }
+
+    /// <summary>N(mu) and dN/dmu, one exponential per state, split over the cores.</summary>
+    private static (double n, double dn) CountAndSlope(StateTable table, double mu, double t)
+    {
+        int chunks = Math.Max(1, Math.Min(Environment.ProcessorCount, table.Count / 65536 + 1));
+        var partial = new double[2 * chunks];
+        Parallel.For(0, chunks, c =>
+        {
+            int start = (int)((long)table.Count * c / chunks), end = (int)((long)table.Count * (c + 1) / chunks);
+            double n = 0, dn = 0;
+            var energy = table.Energy; var weight = table.Weight;
+            for (int s = start; s < end; s++)
+            {
+                double x = (energy[s] - mu) / t;
+                double e = Math.Exp(-Math.Abs(x)), inv = 1 / (1 + e);
+                n += weight[s] * (x > 0 ? e * inv : inv);
+                dn += weight[s] * e * inv * inv;
+            }
+            partial[2 * c] = n; partial[2 * c + 1] = dn / t;
+        });
+        double sn = 0, sd = 0;
+        for (int c = 0; c < chunks; c++) { sn += partial[2 * c]; sd += partial[2 * c + 1]; }
+        return (sn, sd);
     }
 
     private static (double mu, int partial, double fraction, FermiLevelStatus status) SolveMuGround(StateTable table, double electrons)

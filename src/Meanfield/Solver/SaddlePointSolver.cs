@@ -23,6 +23,7 @@ public sealed class SaddlePointSolver
     private readonly GroupInfo[] _groups;
     private int _passes;
     private readonly double _energyScale;
+    private double? _lastMu;
 
     private sealed record GroupInfo(string Name, int Shells, double Q, double Level, int Degeneracy);
 
@@ -99,7 +100,8 @@ public sealed class SaddlePointSolver
         var amp = MeanFieldAmplitudes.Unpack(x);
         var table = _sum.Fill(amp);
         _passes++;
-        var fill = BandFilling.Compute(table, _model.ElectronsPerCell, _settings.Temperature);
+        var fill = BandFilling.Compute(table, _model.ElectronsPerCell, _settings.Temperature, _lastMu);
+        _lastMu = fill.Mu;
         var res = new double[2 * G];
         for (int g = 0; g < G; g++)
         {
