@@ -1,0 +1,78 @@
+using Meanfield.Cli;
+using Meanfield.Output;
+
+namespace Meanfield.Tests.Cli;
+
+public class ModelCommandsTests
+{
+    [Fact]
+    public void InfoNamesTheLinearAlgebraBackend()
+    {
+        var (code, stdout, _) = CliRun.Run("info");
+        Assert.Equal(ExitCodes.Success, code);
+        Assert.Contains("Householder-QL", stdout);
+    }
+
+    [Theory]
+    [InlineData("kondo-insulator-sc.toml")]
+    [InlineData("heavy-metal-cubic.toml")]
+    [InlineData("weyl-diamond.toml")]
+    [InlineData("honeycomb-2d.toml")]
+    [InlineData("flat-band.toml")]
+    public void EveryShippedModelChecks(string file)
+    {
+        var (code, stdout, err) = CliRun.Run("check", CliRun.ModelPath(file));
+        Assert.True(code == ExitCodes.Success, err);
+        Assert.Contains("ok: the model is valid", stdout);
+    }
+
+    [Theory]
+    [InlineData("kondo-insulator-sc.toml", "--bare")]
+    [InlineData("weyl-diamond.toml", "--bare")]
+    [InlineData("honeycomb-2d.toml", "--bare")]
+    [InlineData("heavy-metal-cubic.toml", "--mesh=6")]
+    public void BandsWritesTableAndPicture(string file, string mode)
+    {
+        var dir = CliRun.TempDir();
+        var table = Path.Combine(dir, "bands.csv");
+        var (code, _, err) = CliRun.Run("bands", CliRun.ModelPath(file), mode, "--points", "60", "--out", table);
+        Assert.True(code == ExitCodes.Success, err);
+        Assert.True(File.Exists(table));
+        Assert.True(new FileInfo(Path.ChangeExtension(table, ".png")).Length > 10_000);
+    }
+
+    [Fact]
+    public void BandsRefusesAnUnknownPathLabel()
+    {
+        var dir = CliRun.TempDir();
+        var table = Path.Combine(dir, "bands.csv");
+        var (code, _, err) = CliRun.Run("bands", CliRun.ModelPath("weyl-diamond.toml"), "--bare", "--path", "G Q X", "--out", table);
+        Assert.Equal(ExitCodes.BadInput, code);
+        Assert.Contains("Q", err);
+        Assert.False(File.Exists(table));
+    }
+
+    [Fact]
+    public void ExportedHoppingTableLoads()
+    {
+        var dir = CliRun.TempDir();
+        var solution = Path.Combine(dir, "s.json");
+        Assert.Equal(ExitCodes.Success, CliRun.Run("solve", CliRun.ModelPath("kondo-insulator-sc.toml"), "--mesh", "6", "--out", solution).Code);
+        var table = Path.Combine(dir, "hr.dat");
+        var (code, _, err) = CliRun.Run("export", solution, "--format", "hopping-table", "--out", table);
+        Assert.True(code == ExitCodes.Success, err);
+        var loaded = HoppingTable.Load(table);
+        Assert.Equal(4, loaded.BasisSize); // one c and one f orbital, two spins
+        var json = Path.Combine(dir, "model.json");
+        Assert.Equal(ExitCodes.Success, CliRun.Run("export", solution, "--format", "json", "--out", json).Code);
+        Assert.Contains("\"chemical_potential\"", File.ReadAllText(json));
+    }
+
+    [Fact]
+    public void KondoScaleReportsKelvin()
+    {
+        var (code, stdout, err) = CliRun.Run("kondo-scale", CliRun.ModelPath("kondo-insulator-sc.toml"), "--mesh", "8");
+        Assert.True(code == ExitCodes.Success, err);
+        Assert.Matches(@"T_K\^MF = [0-9.]+ meV = [0-9.]+ K", stdout);
+    }
+}
