@@ -21,6 +21,7 @@ public sealed class LocalDosStateSum : IStateSum
     private readonly double[] _eps;
     private readonly bool[] _conduction;
     private readonly int _n;
+    private readonly int[] _fIndex, _fGroup;
 
     public int Groups => _bare.GroupCount;
     public string Description { get; }
@@ -36,6 +37,7 @@ public sealed class LocalDosStateSum : IStateSum
         if (!(d > 0)) throw new ArgumentException("momentum-free lattice needs a positive DOS half-width D");
         var (eps, weight) = model.Lattice.Kind == LatticeKind.FlatDos ? FlatNodes(d, nodes) : SemiEllipticNodes(d, nodes);
         _eps = eps;
+        (_fIndex, _fGroup) = StateProjection.CorrelatedIndices(bare.GroupOfBasis);
         _conduction = new bool[_n];
         for (int i = 0; i < _n; i++) _conduction[i] = bare.GroupOfBasis[i] < 0;
         _table = new StateTable(eps.Length * _n, bare.GroupCount, uniformWeights: false);
@@ -79,7 +81,7 @@ public sealed class LocalDosStateSum : IStateSum
     public StateTable Fill(MeanFieldAmplitudes amplitudes)
     {
         var ham = new RenormalizedHamiltonian(_bare, amplitudes);
-        int n = _n, groups = Groups;
+        int n = _n;
         var h0 = new Complex[n * n]; var s = new Complex[n * n];
         ham.Assemble(Vec3.Zero, h0, s);
         int chunks = Math.Max(1, Environment.ProcessorCount);
@@ -93,22 +95,7 @@ public sealed class LocalDosStateSum : IStateSum
                 h0.AsSpan().CopyTo(h);
                 for (int i = 0; i < n; i++) if (_conduction[i]) h[i * n + i] += _eps[p];
                 solver.Solve(h, e, v);
-                for (int m = 0; m < n; m++)
-                {
-                    int state = p * n + m, gBase = state * groups;
-                    _table.Energy[state] = e[m];
-                    for (int g = 0; g < groups; g++) { _table.FWeight[gBase + g] = 0; _table.EnergySlope[gBase + g] = 0; }
-                    for (int i = 0; i < n; i++)
-                    {
-                        int g = _bare.GroupOfBasis[i];
-                        if (g < 0) continue;
-                        var vi = v[i * n + m];
-                        Complex sg = Complex.Zero;
-                        for (int j = 0; j < n; j++) sg += s[i * n + j] * (ham.Scale[j] * v[j * n + m]);
-                        _table.FWeight[gBase + g] += vi.Real * vi.Real + vi.Imaginary * vi.Imaginary;
-                        _table.EnergySlope[gBase + g] += 2 * (vi.Real * sg.Real + vi.Imaginary * sg.Imaginary);
-                    }
-                }
+                StateProjection.Store(_table, p * n, n, e, v, s, ham.Scale, _fIndex, _fGroup);
             }
         });
         return _table;

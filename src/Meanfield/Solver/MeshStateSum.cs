@@ -29,9 +29,7 @@ public sealed class MeshStateSum : IStateSum
         int n = bare.Size;
         _table = new StateTable(mesh.Count * n, bare.GroupCount, uniformWeights: true);
         Array.Fill(_table.Weight, 1.0 / mesh.Count);
-        var idx = new List<int>(); var grp = new List<int>();
-        for (int i = 0; i < n; i++) if (bare.GroupOfBasis[i] >= 0) { idx.Add(i); grp.Add(bare.GroupOfBasis[i]); }
-        _fIndex = [.. idx]; _fGroup = [.. grp];
+        (_fIndex, _fGroup) = StateProjection.CorrelatedIndices(bare.GroupOfBasis);
         _work = new ThreadLocal<Workspace>(() => new Workspace(n), trackAllValues: false);
     }
 
@@ -46,44 +44,26 @@ public sealed class MeshStateSum : IStateSum
     public StateTable Fill(MeanFieldAmplitudes amplitudes)
     {
         var ham = new RenormalizedHamiltonian(_bare, amplitudes);
-        int n = _bare.Size, groups = Groups, chunks = Math.Max(1, Environment.ProcessorCount);
+        int n = _bare.Size, chunks = Math.Max(1, Environment.ProcessorCount);
         long ticks = 0;
         Parallel.For(0, chunks, c =>
         {
             var w = _work.Value!;
             w.DiagonalisationTicks = 0;
             int start = (int)((long)Mesh.Count * c / chunks), end = (int)((long)Mesh.Count * (c + 1) / chunks);
-            for (int kp = start; kp < end; kp++) FillPoint(ham, kp, w, n, groups);
+            for (int kp = start; kp < end; kp++) FillPoint(ham, kp, w, n);
             Interlocked.Add(ref ticks, w.DiagonalisationTicks);
         });
         LastDiagonalisationSeconds = ticks / (double)System.Diagnostics.Stopwatch.Frequency;
         return _table;
     }
 
-    private void FillPoint(RenormalizedHamiltonian ham, int kp, Workspace w, int n, int groups)
+    private void FillPoint(RenormalizedHamiltonian ham, int kp, Workspace w, int n)
     {
         ham.Assemble(Mesh.Cartesian(kp), w.H, w.S);
         long t0 = System.Diagnostics.Stopwatch.GetTimestamp();
         w.Solver.Solve(w.H, w.E, w.V);
         w.DiagonalisationTicks += System.Diagnostics.Stopwatch.GetTimestamp() - t0;
-        var scale = ham.Scale;
-        for (int m = 0; m < n; m++)
-        {
-            int state = kp * n + m;
-            _table.Energy[state] = w.E[m];
-            int gBase = state * groups;
-            for (int g = 0; g < groups; g++) { _table.FWeight[gBase + g] = 0; _table.EnergySlope[gBase + g] = 0; }
-            for (int a = 0; a < _fIndex.Length; a++)
-            {
-                int i = _fIndex[a], g = _fGroup[a];
-                var vi = w.V[i * n + m];
-                // <psi| dH/dr_g |psi> = 2 Re sum_{i in g} conj(psi_i) (S G psi)_i
-                Complex sg = Complex.Zero;
-                int row = i * n;
-                for (int j = 0; j < n; j++) sg += w.S[row + j] * (scale[j] * w.V[j * n + m]);
-                _table.FWeight[gBase + g] += vi.Real * vi.Real + vi.Imaginary * vi.Imaginary;
-                _table.EnergySlope[gBase + g] += 2 * (vi.Real * sg.Real + vi.Imaginary * sg.Imaginary);
-            }
-        }
+        StateProjection.Store(_table, kp * n, n, w.E, w.V, w.S, ham.Scale, _fIndex, _fGroup);
     }
 }
