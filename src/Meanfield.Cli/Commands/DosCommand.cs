@@ -33,7 +33,7 @@ public static class DosCommand
             if (ext is not (".csv" or ".parquet")) throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name");
             int n = parse.GetValue(mesh);
             if (n < 2 || n > 200) throw new UserInputException($"--mesh {n}: use 2..200 divisions");
-            var win = parse.GetValue(window);
+            var win = parse.GetValue(window) is { Length: 2 } given ? given : null;
             if (win is { Length: 2 } && !(win[1] > win[0])) throw new UserInputException($"--window {win[0]} {win[1]}: E2 must exceed E1");
             var dE = parse.GetValue(step);
             if (dE is { } s0 && !(s0 > 0)) throw new UserInputException($"--step {s0}: must be positive");
