@@ -12,6 +12,9 @@ public static class CommandTree
         CheckCommand.Build(),
         SolveCommand.Build(),
         BandsCommand.Build(),
+        DosCommand.Build(),
+        NodesCommand.Build(),
+        CurvatureCommand.Build(),
         KondoScaleCommand.Build(),
         ExportCommand.Build(),
     };

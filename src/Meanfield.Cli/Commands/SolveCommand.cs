@@ -1,4 +1,5 @@
 using System.CommandLine;
+using Meanfield.Analysis;
 using Meanfield.Output;
 using Meanfield.Solver;
 
@@ -28,10 +29,33 @@ public static class SolveCommand
                 parse.InvocationConfiguration.Error.WriteLine($"error: not converged; {path} was not written");
                 return ExitCodes.NotConverged;
             }
-            SolutionDocument.From(sp, bound, settings).Save(path);
+            var doc = SolutionDocument.From(sp, bound, settings);
+            if (!bound.IsMomentumFree)
+            {
+                var clock = System.Diagnostics.Stopwatch.StartNew();
+                var digest = Spectrum(sp, bound, settings);
+                o.WriteLine($"phase        {digest.PhaseName} ({digest.PhaseReason}; {clock.Elapsed.TotalSeconds:F2} s)");
+                doc = doc with
+                {
+                    Phase = digest.PhaseName, PhaseReason = digest.PhaseReason, DirectGap = Finite(digest.DirectGap),
+                    IndirectGap = Finite(digest.IndirectGap), DosFermiTotal = Finite(digest.DosFermiTotal),
+                    DosFermiCorrelated = Finite(digest.DosFermiCorrelated),
+                };
+            }
+            doc.Save(path);
             o.WriteLine($"wrote {path}");
             return ExitCodes.Success;
         });
         return command;
     }
+
+    private static SpectrumDigest Spectrum(SaddlePoint sp, Binding.BoundModel model, SolverSettings settings)
+    {
+        var mesh = new Lattices.KMesh(model.Lattice, settings.Mesh, settings.Shifted);
+        var renormalized = new Renormalization.RenormalizedHamiltonian(new Bloch.BlochHamiltonian(model), sp.Amplitudes);
+        return SpectrumSummary.Compute(renormalized, model, sp.Mu, sp.Branch == SaddlePointBranch.Decoupled, mesh,
+                                       energyTolerance: sp.Temperature);
+    }
+
+    private static double? Finite(double v) => double.IsFinite(v) ? v : null;
 }

@@ -25,6 +25,14 @@ public sealed record SolutionDocument
     public required double ElectronsPerCell { get; init; }
     public required string Branch { get; init; }
     public string? Phase { get; init; }
+    /// <summary>Why the phase label was given (plain words).</summary>
+    public string? PhaseReason { get; init; }
+    /// <summary>Direct and indirect gap between bands n_occ - 1 and n_occ on the solve mesh (energy unit); null for a partly filled band.</summary>
+    public double? DirectGap { get; init; }
+    public double? IndirectGap { get; init; }
+    /// <summary>DOS at mu, total and on the correlated orbitals (states per cell per energy unit).</summary>
+    public double? DosFermiTotal { get; init; }
+    public double? DosFermiCorrelated { get; init; }
     public required IReadOnlyList<SiteEntry> Sites { get; init; }
     public required IReadOnlyDictionary<string, double> Parameters { get; init; }
     public required SamplingEntry Sampling { get; init; }

@@ -1,0 +1,221 @@
+using System.Globalization;
+using System.Text.Json;
+using Meanfield.Cli;
+
+namespace Meanfield.Tests.Cli;
+
+/// <summary>End-to-end checks of `dos`, `nodes`, `curvature` and the phase fields of `solve` (small meshes).</summary>
+public sealed class SpectraCommandTests
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    private static (string Header, string[] Columns, double[][] Rows) ReadCsv(string path)
+    {
+        var lines = File.ReadAllLines(path);
+        var cols = lines[1].Split(',');
+        var rows = lines.Skip(2).Select(l => l.Split(',').Select(x => double.Parse(x, Inv)).ToArray()).ToArray();
+        return (lines[0], cols, rows);
+    }
+
+    [Fact]
+    public void DosOfTheKondoInsulatorCountsAllBandsAndVanishesInTheGap()
+    {
+        using var cli = new CliHarness();
+        var csv = cli.PathOf("dos.csv");
+        Assert.Equal(ExitCodes.Success, cli.Run("dos", CliHarness.ShippedModel("kondo-insulator-sc.toml"), "--mesh", "12", "--out", csv));
+        Assert.True(File.Exists(cli.PathOf("dos.png")));
+        var (header, cols, rows) = ReadCsv(csv);
+        Assert.StartsWith("#", header);
+        Assert.Contains("energy_unit=meV", header);
+        int integrated = Array.IndexOf(cols, "integrated"), total = Array.IndexOf(cols, "total"), rel = Array.IndexOf(cols, "energy_minus_mu");
+        int c = Array.IndexOf(cols, "conduction"), f = Array.IndexOf(cols, "correlated");
+        // Above the spectrum the integrated DOS counts every state: 2 orbitals x 2 spins = 4 per cell (common practice).
+        Assert.Equal(4.0, rows[^1][integrated], 6);
+        // Kind projections add up to the total (orthonormal basis, common practice).
+        foreach (var r in rows) Assert.Equal(r[total], r[c] + r[f], 9);
+        // Gapped spectrum: no states at mu, and the states below the gap hold exactly the 2 electrons per cell
+        // (Luttinger count of an insulator, common practice).
+        var inGap = rows.Where(r => Math.Abs(r[rel]) < 0.5).ToArray();
+        Assert.NotEmpty(inGap);
+        foreach (var r in inGap)
+        {
+            Assert.Equal(0.0, r[total], 12);
+            Assert.Equal(2.0, r[integrated], 6);
+        }
+        Assert.Contains("DOS at mu: total 0,", cli.Out);
+    }
+
+    [Fact]
+    public async Task DosParquetCarriesUnitsAndWarnsAboutAStepFinerThanTheMesh()
+    {
+        using var cli = new CliHarness();
+        var pq = cli.PathOf("dos.parquet");
+        Assert.Equal(ExitCodes.Success, cli.Run("dos", CliHarness.ShippedModel("kondo-insulator-sc.toml"), "--bare", "--mesh", "4",
+            "--window", "-700", "700", "--step", "0.5", "--out", pq));
+        Assert.Contains("--mesh", cli.Err);
+        await using var stream = File.OpenRead(pq);
+        await using var reader = await Parquet.ParquetReader.CreateAsync(stream);
+        Assert.Equal("meV", reader.CustomMetadata["energy_unit"]);
+        Assert.Equal(2801, reader.Metadata!.NumRows);
+    }
+
+    [Fact]
+    public void DiamondModelAtZeroStaggeringHasDiracPointsAtX()
+    {
+        // Fu, Kane & Mele, PRL 98, 106803 (2007): with equal bonds (dt = 0) the diamond model has fourfold Dirac points
+        // at the three X points.
+        using var cli = new CliHarness();
+        var model = cli.Write("fkm.toml", CliHarness.FuKaneMeleToml);
+        var json = cli.PathOf("nodes.json");
+        Assert.Equal(ExitCodes.Success, cli.Run("nodes", model, "--search-mesh", "8", "--out", json));
+        using var doc = JsonDocument.Parse(File.ReadAllText(json));
+        var nodes = doc.RootElement.GetProperty("nodes").EnumerateArray().ToList();
+        Assert.Equal(3, nodes.Count);
+        foreach (var n in nodes)
+        {
+            Assert.Equal("X", n.GetProperty("location").GetString());
+            Assert.Equal("dirac", n.GetProperty("degeneracy").GetString());
+            Assert.Equal(4, n.GetProperty("bands_touching").GetInt32());
+        }
+        Assert.Equal("dirac-semimetal", doc.RootElement.GetProperty("phase").GetProperty("label").GetString());
+    }
+
+    [Fact]
+    public void BrokenInversionGivesWeylNodesWithZeroNetChirality()
+    {
+        // Murakami, New J. Phys. 9, 356 (2007): between the topological and the trivial insulator (here t = 1,
+        // lso = 0.125, dt = 0.3, m = 0.85, inside about 0.68 < m < 1.0) the gap closes at Weyl nodes; their chiralities
+        // sum to zero (Nielsen & Ninomiya, Nucl. Phys. B 185, 20 (1981)).
+        using var cli = new CliHarness();
+        var model = cli.Write("fkm.toml", CliHarness.FuKaneMeleToml);
+        var json = cli.PathOf("nodes.json");
+        Assert.Equal(ExitCodes.Success, cli.Run("nodes", model, "--set", "dt=0.3", "--set", "m=0.85", "--search-mesh", "10", "--out", json));
+        using var doc = JsonDocument.Parse(File.ReadAllText(json));
+        var nodes = doc.RootElement.GetProperty("nodes").EnumerateArray().ToList();
+        Assert.NotEmpty(nodes);
+        Assert.Equal(0, nodes.Count % 2);
+        foreach (var n in nodes)
+        {
+            Assert.Equal("weyl", n.GetProperty("degeneracy").GetString());
+            Assert.Equal(1, Math.Abs(n.GetProperty("chirality").GetInt32()));
+            Assert.Equal(n.GetProperty("chirality").GetInt32(), n.GetProperty("flux_over_2pi").GetDouble(), 1);
+        }
+        Assert.Equal(0, nodes.Sum(n => n.GetProperty("chirality").GetInt32()));
+        Assert.Equal(0, doc.RootElement.GetProperty("chirality_sum").GetInt32());
+        Assert.Equal("weyl-semimetal", doc.RootElement.GetProperty("phase").GetProperty("label").GetString());
+        Assert.Contains("Weyl", cli.Out);
+    }
+
+    [Fact]
+    public void LargeStaggeringGapsTheSpectrum()
+    {
+        // Murakami (2007): beyond the Weyl window the staggered potential gives a trivial insulator.
+        using var cli = new CliHarness();
+        var model = cli.Write("fkm.toml", CliHarness.FuKaneMeleToml);
+        var json = cli.PathOf("nodes.json");
+        Assert.Equal(ExitCodes.Success, cli.Run("nodes", model, "--set", "dt=0.3", "--set", "m=1.5", "--search-mesh", "8", "--out", json));
+        using var doc = JsonDocument.Parse(File.ReadAllText(json));
+        Assert.Equal(0, doc.RootElement.GetProperty("node_count").GetInt32());
+        Assert.True(doc.RootElement.GetProperty("gaps").GetProperty("indirect").GetDouble() > 0.1);
+        Assert.Equal(0.0, doc.RootElement.GetProperty("dos_fermi").GetProperty("total_per_cell").GetDouble(), 12);
+    }
+
+    [Theory]
+    [InlineData(11)]
+    [InlineData(29)]
+    [InlineData(47)]
+    public void RandomSmallPerturbationsKeepTheChiralitySumAtZero(int seed)
+    {
+        // Nielsen & Ninomiya (1981): the chirality sum over the zone vanishes for any lattice Hamiltonian.
+        var rng = new Random(seed);
+        string Jitter(string name, double value) => string.Create(Inv, $"{name}={value + 0.04 * (rng.NextDouble() - 0.5):R}");
+        using var cli = new CliHarness();
+        var model = cli.Write("fkm.toml", CliHarness.FuKaneMeleToml);
+        var json = cli.PathOf("nodes.json");
+        Assert.Equal(ExitCodes.Success, cli.Run("nodes", model, "--set", Jitter("dt", 0.3), "--set", Jitter("m", 0.85),
+            "--set", Jitter("lso", 0.125), "--set", Jitter("t", 1), "--search-mesh", "10", "--out", json));
+        using var doc = JsonDocument.Parse(File.ReadAllText(json));
+        var chir = doc.RootElement.GetProperty("nodes").EnumerateArray().Select(n => n.GetProperty("chirality").GetInt32()).ToList();
+        Assert.NotEmpty(chir);
+        Assert.All(chir, c => Assert.NotEqual(0, c));
+        Assert.Equal(0, chir.Sum());
+    }
+
+    [Fact]
+    public void NodesOfAHeavyMetalHaveNoAnswerAndWriteNothing()
+    {
+        using var cli = new CliHarness();
+        var json = cli.PathOf("nodes.json");
+        Assert.Equal(ExitCodes.NoAnswer, cli.Run("nodes", CliHarness.ShippedModel("heavy-metal-cubic.toml"), "--mesh", "8", "--out", json));
+        Assert.Contains("metal", cli.Err);
+        Assert.Empty(cli.Files());
+    }
+
+    [Fact]
+    public void CurvatureOnADegeneratePlaneIsBadInputAndWritesNothing()
+    {
+        using var cli = new CliHarness();
+        var model = cli.Write("fkm.toml", CliHarness.FuKaneMeleToml);
+        var csv = cli.PathOf("omega.csv");
+        Assert.Equal(ExitCodes.BadInput, cli.Run("curvature", model, "--plane", "0,0,0; 1,0,0; 2,0,0", "--out", csv));
+        Assert.Contains("does not cut the zone", cli.Err);
+        Assert.Equal(["fkm.toml"], cli.Files());
+    }
+
+    [Fact]
+    public void CurvatureOnAFullZonePlaneOfATimeReversalInvariantModelHasChernNumberZero()
+    {
+        // Time reversal makes Omega(-k) = -Omega(k), so the Chern number of any full-zone plane vanishes
+        // (Thouless, Kohmoto, Nightingale & den Nijs, PRL 49, 405 (1982); common practice).
+        using var cli = new CliHarness();
+        var model = cli.Write("fkm.toml", CliHarness.FuKaneMeleToml);
+        var csv = cli.PathOf("omega.csv");
+        Assert.Equal(ExitCodes.Success, cli.Run("curvature", model, "--set", "dt=0.3", "--set", "m=0.85", "--plane", "0,0,0.1; 1,0,0; 0,1,0",
+            "--grid", "16", "--search-mesh", "8", "--out", csv));
+        Assert.True(File.Exists(cli.PathOf("omega.png")));
+        var (header, cols, rows) = ReadCsv(csv);
+        Assert.Contains("Chern number 0", header);
+        Assert.Equal(16 * 16, rows.Length);
+        int flux = Array.IndexOf(cols, "flux");
+        Assert.Equal(0.0, rows.Sum(r => r[flux]) / (2 * Math.PI), 6);
+    }
+
+    [Fact]
+    public void SolveWritesThePhaseFields()
+    {
+        using var cli = new CliHarness();
+        var json = cli.PathOf("solution.json");
+        Assert.Equal(ExitCodes.Success, cli.Run("solve", CliHarness.ShippedModel("kondo-insulator-sc.toml"), "--mesh", "10", "--out", json));
+        using var doc = JsonDocument.Parse(File.ReadAllText(json));
+        var root = doc.RootElement;
+        // Two electrons fill the lower hybridized band of the periodic Anderson lattice: a Kondo insulator
+        // (Hewson, The Kondo Problem to Heavy Fermions, 1993, ch. 7 (from memory)).
+        Assert.Equal("kondo-insulator", root.GetProperty("phase").GetString());
+        Assert.False(string.IsNullOrEmpty(root.GetProperty("phase_reason").GetString()));
+        double direct = root.GetProperty("direct_gap").GetDouble(), indirect = root.GetProperty("indirect_gap").GetDouble();
+        Assert.True(indirect > 0);
+        Assert.True(direct >= indirect);
+        Assert.Equal(0.0, root.GetProperty("dos_fermi_total").GetDouble(), 12);
+        Assert.Equal(0.0, root.GetProperty("dos_fermi_correlated").GetDouble(), 12);
+        Assert.Contains("phase        kondo-insulator", cli.Out);
+
+        // The solution feeds `nodes`: an insulator has none, and the label agrees.
+        var nodes = cli.PathOf("nodes.json");
+        Assert.Equal(ExitCodes.Success, cli.Run("nodes", json, "--search-mesh", "8", "--out", nodes));
+        using var n = JsonDocument.Parse(File.ReadAllText(nodes));
+        Assert.Equal(0, n.RootElement.GetProperty("node_count").GetInt32());
+        Assert.Equal("kondo-insulator", n.RootElement.GetProperty("phase").GetProperty("label").GetString());
+    }
+
+    [Fact]
+    public void SolveLabelsAPartlyFilledBandAHeavyMetal()
+    {
+        using var cli = new CliHarness();
+        var json = cli.PathOf("solution.json");
+        Assert.Equal(ExitCodes.Success, cli.Run("solve", CliHarness.ShippedModel("heavy-metal-cubic.toml"), "--mesh", "10", "--out", json));
+        using var doc = JsonDocument.Parse(File.ReadAllText(json));
+        Assert.Equal("heavy-metal", doc.RootElement.GetProperty("phase").GetString());
+        Assert.True(doc.RootElement.GetProperty("dos_fermi_total").GetDouble() > 0);
+        Assert.False(doc.RootElement.TryGetProperty("indirect_gap", out _));
+    }
+}
