@@ -21,6 +21,12 @@ public static class Runner
         catch (FileNotFoundException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
         catch (DirectoryNotFoundException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
         catch (ArgumentException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
+        catch (NotConvergedException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.NotConverged; }
         catch (OperationCanceledException) { error.WriteLine("cancelled"); return 130; }
+        catch (Exception e)
+        {
+            error.WriteLine($"internal error (please report it with the command line): {e}");
+            return ExitCodes.Internal;
+        }
     }
 }

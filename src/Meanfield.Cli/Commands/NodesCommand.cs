@@ -99,16 +99,9 @@ public static class NodesCommand
         }
         var dos = tetra.DosAtEnergy(mu);
         var (decoupled, temperature) = SolutionFacts(src, inputPath);
-        var phase = PhaseClassifier.Classify(decoupled, gaps, nodes, dos.Total, Tolerances(width, temperature));
+        var phase = PhaseClassifier.Classify(decoupled, gaps, nodes, dos.Total, SpectrumSummary.Tolerances(width, temperature));
         return new(nodes, gaps, dos, phase);
     }
-
-    /// <summary>
-    /// Tolerances of the phase label relative to the bandwidth. A finite-temperature mean-field mu sits at a node energy
-    /// only up to corrections of order k_B T, hence the energy tolerance of one k_B T for solutions.
-    /// </summary>
-    internal static PhaseClassifier.Tolerances Tolerances(double width, double temperature) =>
-        new(GapTolerance: 1e-6 * width, EnergyTolerance: Math.Max(1e-6 * width, temperature), DosTolerance: 1e-3 / width);
 
     /// <summary>A whole number of electrons per cell: the only fillings that can leave a gap or pin mu at nodes.</summary>
     internal static bool IsWholeFilling(BoundModel model) => Math.Abs(model.ElectronsPerCell - Math.Round(model.ElectronsPerCell)) <= 1e-9;

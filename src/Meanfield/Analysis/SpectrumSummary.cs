@@ -37,8 +37,9 @@ public static class SpectrumSummary
     /// Digest of <paramref name="renormalized"/> at chemical potential <paramref name="mu"/>. The DOS and gaps use a
     /// Gamma-centred mesh with the divisions of <paramref name="mesh"/> (the tetrahedron method needs the zone centre);
     /// nodes are searched on a <paramref name="searchMesh"/> mesh. Nodes count as "at the Fermi level" within
-    /// max(1e-6 bandwidth, <paramref name="energyTolerance"/>), because a finite-temperature mean-field mu sits at
-    /// the node only up to terms of order T^2.
+    /// max(1e-3 bandwidth, <paramref name="energyTolerance"/>): a finite-temperature mean-field mu sits at the node
+    /// only up to terms of order T^2, and a node that small a fraction of the band away leaves Fermi pockets too small
+    /// to matter next to the cone (the Weyl-Kondo regime).
     /// </summary>
     public static SpectrumDigest Compute(IBlochSource renormalized, BoundModel model, double mu, bool decoupled, KMesh mesh,
                                          int searchMesh = DefaultSearchMesh, double energyTolerance = 0)
@@ -52,8 +53,7 @@ public static class SpectrumSummary
         double electrons = model.ElectronsPerCell;
         int occupied = (int)Math.Round(electrons);
         bool integer = Math.Abs(electrons - occupied) < 1e-9 && occupied >= 1 && occupied < renormalized.Size;
-        var tol = new PhaseClassifier.Tolerances(GapTolerance: 1e-6 * width, EnergyTolerance: Math.Max(1e-6 * width, energyTolerance),
-                                                 DosTolerance: 1e-3 / width);
+        var tol = Tolerances(width, energyTolerance);
         if (!integer)
         {
             var label = decoupled ? new PhaseLabel(Phase.Decoupled, "all boson amplitudes vanish (r = 0)")
@@ -67,6 +67,14 @@ public static class SpectrumSummary
         return new(gaps.Direct, gaps.Indirect, atMu.Total, atMu.Correlated, nodes.Nodes.Count, maxOffset,
                    nodes.ChiralitySum, nodes.Nodes.Sum(n => Math.Abs(n.Chirality)), phase.Phase, phase.Reason, nodes, gaps);
     }
+
+    /// <summary>
+    /// Tolerances of the phase label for a spectrum of total width <paramref name="width"/>: a gap counts above 1e-6 of
+    /// the width; a node is "at mu" within max(1e-3 width, <paramref name="temperature"/>); the DOS at mu counts above
+    /// 1e-3 state per cell per width.
+    /// </summary>
+    public static PhaseClassifier.Tolerances Tolerances(double width, double temperature) =>
+        new(GapTolerance: 1e-6 * width, EnergyTolerance: Math.Max(1e-3 * width, temperature), DosTolerance: 1e-3 / width);
 
     /// <summary>File form of a phase: lower-case words joined by '-'.</summary>
     public static string Name(Phase phase) => phase switch

@@ -76,3 +76,27 @@ public class ModelCommandsTests
         Assert.Matches(@"T_K\^MF = [0-9.]+ meV = [0-9.]+ K", stdout);
     }
 }
+
+/// <summary>
+/// Nielsen &amp; Ninomiya, Nucl. Phys. B 185, 20 (1981): the chiralities of all Weyl nodes in the zone sum to zero —
+/// on the shipped Weyl model's renormalized bands and on small random perturbations of its parameters.
+/// </summary>
+public class ShippedWeylModelTests
+{
+    [Theory]
+    [InlineData(0, "")]
+    [InlineData(1, "--set=m=190")]
+    [InlineData(2, "--set=V=310")]
+    public void ChiralitiesSumToZero(int seed, string perturbation)
+    {
+        var dir = CliRun.TempDir();
+        var nodes = Path.Combine(dir, $"nodes{seed}.json");
+        var args = new List<string> { "nodes", CliRun.ModelPath("weyl-diamond.toml"), "--mesh", "12", "--out", nodes };
+        if (perturbation.Length > 0) args.Insert(2, perturbation);
+        var (code, stdout, err) = CliRun.Run([.. args]);
+        Assert.True(code == ExitCodes.Success, err + stdout);
+        using var doc = System.Text.Json.JsonDocument.Parse(File.ReadAllText(nodes));
+        Assert.True(doc.RootElement.GetProperty("node_count").GetInt32() >= 2, stdout);
+        Assert.Equal(0, doc.RootElement.GetProperty("chirality_sum").GetInt32());
+    }
+}

@@ -40,11 +40,11 @@ public class ShippedModelTests
     }
 
     [Fact]
-    public void Weyl_diamond_is_half_filled_with_eight_bands()
+    public void Weyl_diamond_is_quarter_filled_with_eight_bands()
     {
         var model = ModelBinder.Bind(ModelFile.Load(Path.Combine(ModelText.RepositoryRoot(), "models", "weyl-diamond.toml")));
         Assert.Equal(8, model.BasisSize);
-        Assert.Equal(model.BasisSize / 2.0, model.ElectronsPerCell);
+        Assert.Equal(model.BasisSize / 4.0, model.ElectronsPerCell);
         Assert.Equal(2, model.ShellGroups().Count);
     }
 }
