@@ -10,5 +10,6 @@ var root = new RootCommand("meanfield: infinite-U auxiliary-boson mean field of 
     BandsCommand.Build(),
     KondoScaleCommand.Build(),
     ExportCommand.Build(),
+    HeatCommand.Build(),
 };
 return Runner.Run(root, args);

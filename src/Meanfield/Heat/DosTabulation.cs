@@ -21,37 +21,52 @@ public static class DosTabulation
         Build(dos.Energies, dos.Total, dos.Integrated, model.ElectronsPerCell, model.Unit, model.FormulaUnitsPerCell);
 
     /// <summary>
-    /// A coarse DOS over the whole spectrum with a fine one spliced in over the fine grid's range (both from the same
-    /// engine, so their integrated DOS agree): the heat sees the structure near the Fermi level at the fine step.
+    /// A coarse DOS over the whole spectrum with finer ones spliced in, each over its own grid's range (all from the same
+    /// engine, so their integrated DOS agree). <paramref name="finer"/> runs from the widest to the narrowest grid; each
+    /// must lie inside the one before. The heat then sees the structure near the Fermi level at the finest step.
     /// </summary>
-    public static TabulatedDos FromDensityOfStates(DensityOfStates coarse, DensityOfStates fine, BoundModel model)
+    public static TabulatedDos FromDensityOfStates(DensityOfStates coarse, IReadOnlyList<DensityOfStates> finer, BoundModel model)
     {
-        double lo = fine.Energies[0], hi = fine.Energies[^1];
-        var e = new List<double>(); var rho = new List<double>(); var n = new List<double>();
-        for (int i = 0; i < coarse.Energies.Length && coarse.Energies[i] < lo; i++)
-        { e.Add(coarse.Energies[i]); rho.Add(coarse.Total[i]); n.Add(coarse.Integrated[i]); }
-        e.AddRange(fine.Energies); rho.AddRange(fine.Total); n.AddRange(fine.Integrated);
-        for (int i = 0; i < coarse.Energies.Length; i++)
-            if (coarse.Energies[i] > hi) { e.Add(coarse.Energies[i]); rho.Add(coarse.Total[i]); n.Add(coarse.Integrated[i]); }
+        var (e, rho, n) = (coarse.Energies.ToList(), coarse.Total.ToList(), coarse.Integrated.ToList());
+        foreach (var fine in finer)
+        {
+            double lo = fine.Energies[0], hi = fine.Energies[^1];
+            int a = e.FindIndex(x => x >= lo), b = e.FindLastIndex(x => x <= hi);
+            if (a < 0 || b < a) throw new ArgumentException("a finer DOS grid must lie inside the grid before it");
+            e.RemoveRange(a, b - a + 1); rho.RemoveRange(a, b - a + 1); n.RemoveRange(a, b - a + 1);
+            e.InsertRange(a, fine.Energies); rho.InsertRange(a, fine.Total); n.InsertRange(a, fine.Integrated);
+        }
         return Build(e, rho, n, model.ElectronsPerCell, model.Unit, model.FormulaUnitsPerCell);
     }
 
     /// <summary>
-    /// The DOS of <paramref name="engine"/> for heat at temperatures up to <paramref name="maxTemperatureK"/>: a coarse
-    /// grid of <paramref name="coarsePoints"/> over the spectrum and a fine grid of step at most
-    /// <paramref name="fineStepK"/> (K, as energy) over the Fermi window centre +- (60 T_max + margin). The centre is
-    /// the energy where the engine's integrated DOS reaches N_e.
+    /// The DOS of <paramref name="engine"/> for heat from <paramref name="minTemperatureK"/> to
+    /// <paramref name="maxTemperatureK"/>: a coarse grid of <paramref name="coarsePoints"/> over the spectrum and nested
+    /// grids around E_F for T_j = T_max, T_max/4, ... down to T_min, each over E_F +- 60 T_j with step T_j/4: every
+    /// temperature sees its Fermi window (the kernels fall as e^-|E-mu|/T) resolved on a step below T. E_F is where the
+    /// engine's integrated DOS reaches N_e.
     /// </summary>
-    public static TabulatedDos ForHeat(TetrahedronDos engine, BoundModel model, double maxTemperatureK, double fineStepK,
-                                       int coarsePoints = 2001, int maxFinePoints = 20001)
+    public static TabulatedDos ForHeat(TetrahedronDos engine, BoundModel model, double minTemperatureK, double maxTemperatureK,
+                                       int coarsePoints = 2001)
     {
+        if (!(minTemperatureK > 0 && maxTemperatureK >= minTemperatureK)) throw new ArgumentException("need 0 < T_min <= T_max");
         var coarse = engine.Compute(new DosOptions { Points = coarsePoints });
         double centre = FermiEnergy(coarse.Energies, coarse.Integrated, model.ElectronsPerCell);
         double k = model.Unit.Kelvins();
-        double half = 60 * maxTemperatureK / k + 2 * coarse.Step;
-        int points = (int)Math.Clamp(Math.Ceiling(2 * half / (fineStepK / k)) + 1, 101, maxFinePoints);
-        var fine = engine.Compute(new DosOptions { Points = points, Minimum = centre - half, Maximum = centre + half });
-        return FromDensityOfStates(coarse, fine, model);
+        var levels = new List<DensityOfStates>();
+        double previousHalf = double.PositiveInfinity, previousStep = coarse.Step;
+        for (double t = maxTemperatureK; ; t = Math.Max(t / 4, minTemperatureK))
+        {
+            double step = 0.25 * t / k, half = 60 * t / k;
+            if (step < previousStep && half < previousHalf)
+            {
+                int points = 2 * (int)Math.Ceiling(half / step) + 1;
+                levels.Add(engine.Compute(new DosOptions { Points = points, Minimum = centre - half, Maximum = centre + half }));
+                previousHalf = half; previousStep = step;
+            }
+            if (t <= minTemperatureK) break;
+        }
+        return FromDensityOfStates(coarse, levels, model);
     }
 
     /// <summary>
