@@ -52,7 +52,7 @@ public static class HeatCommand
             req.Validate();
             var measuredData = LoadMeasured(req);
             var src = SolutionInput.Resolve(parse.GetValue(input)!, parse.GetValue(set), parse.GetValue(temperature), parse.GetValue(mesh), false, o);
-            return Run(req, src, measuredData, parse.GetValue(temperature), parse.GetValue(mesh), o);
+            return Run(req, src, measuredData, parse.GetValue(temperature), parse.GetValue(mesh), o, parse.InvocationConfiguration.Error);
         });
         return command;
     }
@@ -101,7 +101,7 @@ public static class HeatCommand
     private static string Exists(string path) =>
         File.Exists(path) ? path : throw new UserInputException($"{path}: file not found");
 
-    private static int Run(Request req, SolutionInput src, MeasuredHeat? measured, string? temperature, int? mesh, TextWriter o)
+    private static int Run(Request req, SolutionInput src, MeasuredHeat? measured, string? temperature, int? mesh, TextWriter o, TextWriter error)
     {
         var model = src.Model;
         if (model.IsMomentumFree || model.Lattice.Dimension < 2)
@@ -149,8 +149,17 @@ public static class HeatCommand
         {
             if (model.Shells.Count == 0) throw new UserInputException($"{model.SourcePath}: no correlated shell, so there is no mean field to re-solve");
             var grid = MeanFieldHeat.Grid(req.TMin, req.TMax, req.MfPoints);
-            sweep = MeanFieldHeat.Sweep((t, g) => new SaddlePointSolver(model, settings with { Temperature = t, InitialGuess = g }).Solve(),
-                                        unit, model.FormulaUnitsPerCell, grid);
+            try
+            {
+                sweep = MeanFieldHeat.Sweep((t, g) => new SaddlePointSolver(model, settings with { Temperature = t, InitialGuess = g }).Solve(),
+                                            unit, model.FormulaUnitsPerCell, grid,
+                                            decoupled: t => new SaddlePointSolver(model, settings with { Temperature = t }).Decoupled());
+            }
+            catch (InvalidOperationException e)
+            {
+                error.WriteLine($"error: full mean field: {e.Message}; nothing written");
+                return ExitCodes.NotConverged;
+            }
             fullCurve = sweep.Curve();
             o.WriteLine($"full mean field: {grid.Length} saddle points from {grid[0]:G4} to {grid[^1]:G4} K on a {settings.Mesh}^3 {(settings.Shifted ? "shifted " : "")}mesh");
             if (sweep.LastKondoK is { } lo && sweep.FirstDecoupledK is { } hi)
@@ -205,7 +214,10 @@ public static class HeatCommand
         int occupied = (int)Math.Round(n);
         if (model.Lattice.Dimension != 3 || Math.Abs(n - occupied) > 1e-9 || occupied < 1 || occupied >= src.Hamiltonian.Size) return null;
         var search = NodeSearch.Find(src.Hamiltonian, occupied, mu0);
-        return FermiLevelNodes.From(search, model, Math.Max(pinning, 1e-9));
+        var nodes = FermiLevelNodes.From(search, model, Math.Max(pinning, 1e-9));
+        if (nodes is null && search.Nodes.Count > 0)
+            o.WriteLine($"node search: {search.Nodes.Count} touchings of bands {occupied - 1} and {occupied}, none a type-I cone at E_F (closest {search.Nodes.Min(n => Math.Abs(n.EnergyOffset)):G3} {model.Unit.Symbol()} away){(search.IsMetal ? "; the spectrum is metallic" : "")}");
+        return nodes;
     }
 
     private static SommerfeldFit FitWindow(Request req, HeatCurve curve, TextWriter o)

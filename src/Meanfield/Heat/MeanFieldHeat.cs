@@ -37,12 +37,17 @@ public sealed record MeanFieldHeatSweep(IReadOnlyList<MeanFieldHeatPoint> Points
 /// </summary>
 public static class MeanFieldHeat
 {
+    /// <summary>r below this fraction of its lowest-temperature value marks a collapsing Kondo branch (decoupled fallback).</summary>
+    public const double CollapsingFraction = 0.5;
+
     /// <param name="solve">Solves the model at a temperature in the model's energy unit, warm-started from the amplitudes given.</param>
     /// <param name="unit">The model's energy unit.</param>
     /// <param name="formulaUnitsPerCell">Formula units per cell, for molar C.</param>
     /// <param name="temperaturesK">Ascending temperatures (K), at least 3; a uniform grid gives second-order differences.</param>
+    /// <param name="decoupled">The r = 0 solution at a temperature (energy unit), used when the iteration stalls just above T_K^MF.</param>
     public static MeanFieldHeatSweep Sweep(Func<double, MeanFieldAmplitudes?, SaddlePoint> solve, EnergyUnit unit,
                                            double formulaUnitsPerCell, IReadOnlyList<double> temperaturesK,
+                                           Func<double, SaddlePoint?>? decoupled = null,
                                            IProgress<string>? progress = null, CancellationToken cancellation = default)
     {
         if (temperaturesK.Count < 3) throw new ArgumentException("a second derivative needs at least 3 temperatures");
@@ -58,7 +63,17 @@ public static class MeanFieldHeat
             if (!(temperaturesK[i] > 0) || (i > 0 && !(temperaturesK[i] > temperaturesK[i - 1])))
                 throw new ArgumentException("temperatures must be positive and strictly ascending");
             t[i] = temperaturesK[i] / kelvins;
-            var sp = solve(t[i], guess);
+            // Above T_K^MF the mean-field r stays 0 (Newns & Read, Adv. Phys. 36, 799 (1987)): once decoupled, stay so.
+            var sp = decoupled is not null && i > 0 && sps[i - 1].Branch == SaddlePointBranch.Decoupled
+                ? decoupled(t[i]) ?? solve(t[i], guess)
+                : solve(t[i], guess);
+            // Near T_K^MF a warm start from a nearly collapsed r can stall; the solver's own starting points then decide.
+            if (!sp.Converged && guess is not null) sp = solve(t[i], null);
+            // Just above T_K^MF only r = 0 solves the equations, but the iteration can stall on the way down to it: when
+            // r has already fallen below half its value at the lowest temperature (or is gone), take the decoupled solution.
+            if (!sp.Converged && decoupled is not null && i > 0
+                && sps[i - 1].Groups.Min(g => g.R) < CollapsingFraction * sps[0].Groups.Min(g => g.R))
+                sp = decoupled(t[i]) ?? sp;
             if (!sp.Converged)
                 throw new InvalidOperationException(
                     $"the saddle point did not converge at T = {temperaturesK[i]:G6} K: {string.Join(" ", sp.Notes)}");
