@@ -1,0 +1,106 @@
+using Meanfield.Analysis.Dos;
+using Meanfield.Binding;
+using Meanfield.Units;
+
+namespace Meanfield.Heat;
+
+/// <summary>
+/// Turns the DOS engine's <see cref="DensityOfStates"/> (states per cell per energy unit on a uniform grid) into the
+/// <see cref="TabulatedDos"/> the heat code integrates, with the model's energy unit and formula units per cell.
+/// </summary>
+/// <remarks>
+/// The engine's integrated DOS is exact for its interpolant, while <see cref="TabulatedDos"/> counts states by the
+/// trapezoid rule on the grid; the two differ by the grid's quadrature error. So the electron count handed on is the
+/// trapezoid count at the energy where the engine's integrated DOS reaches N_e (the middle of a plateau when N_e is
+/// reached inside a gap): the T = 0 Fermi level then sits where the engine puts it, and rho is left unscaled.
+/// </remarks>
+public static class DosTabulation
+{
+    /// <summary>One DOS on one grid, for the electron count and units of <paramref name="model"/>.</summary>
+    public static TabulatedDos FromDensityOfStates(DensityOfStates dos, BoundModel model) =>
+        Build(dos.Energies, dos.Total, dos.Integrated, model.ElectronsPerCell, model.Unit, model.FormulaUnitsPerCell);
+
+    /// <summary>
+    /// A coarse DOS over the whole spectrum with finer ones spliced in, each over its own grid's range (all from the same
+    /// engine, so their integrated DOS agree). <paramref name="finer"/> runs from the widest to the narrowest grid; each
+    /// must lie inside the one before. The heat then sees the structure near the Fermi level at the finest step.
+    /// </summary>
+    public static TabulatedDos FromDensityOfStates(DensityOfStates coarse, IReadOnlyList<DensityOfStates> finer, BoundModel model)
+    {
+        var (e, rho, n) = (coarse.Energies.ToList(), coarse.Total.ToList(), coarse.Integrated.ToList());
+        foreach (var fine in finer)
+        {
+            double lo = fine.Energies[0], hi = fine.Energies[^1];
+            int a = e.FindIndex(x => x >= lo), b = e.FindLastIndex(x => x <= hi);
+            if (a < 0 || b < a) throw new ArgumentException("a finer DOS grid must lie inside the grid before it");
+            e.RemoveRange(a, b - a + 1); rho.RemoveRange(a, b - a + 1); n.RemoveRange(a, b - a + 1);
+            e.InsertRange(a, fine.Energies); rho.InsertRange(a, fine.Total); n.InsertRange(a, fine.Integrated);
+        }
+        return Build(e, rho, n, model.ElectronsPerCell, model.Unit, model.FormulaUnitsPerCell);
+    }
+
+    /// <summary>
+    /// The DOS of <paramref name="engine"/> for heat from <paramref name="minTemperatureK"/> to
+    /// <paramref name="maxTemperatureK"/>: a coarse grid of <paramref name="coarsePoints"/> over the spectrum and nested
+    /// grids around E_F for T_j = T_max, T_max/4, ... down to T_min, each over E_F +- 60 T_j with step T_j/4: every
+    /// temperature sees its Fermi window (the kernels fall as e^-|E-mu|/T) resolved on a step below T. E_F is where the
+    /// engine's integrated DOS reaches N_e.
+    /// </summary>
+    public static TabulatedDos ForHeat(TetrahedronDos engine, BoundModel model, double minTemperatureK, double maxTemperatureK,
+                                       int coarsePoints = 2001)
+    {
+        if (!(minTemperatureK > 0 && maxTemperatureK >= minTemperatureK)) throw new ArgumentException("need 0 < T_min <= T_max");
+        var coarse = engine.Compute(new DosOptions { Points = coarsePoints });
+        double centre = FermiEnergy(coarse.Energies, coarse.Integrated, model.ElectronsPerCell);
+        double k = model.Unit.Kelvins();
+        var levels = new List<DensityOfStates>();
+        double previousHalf = double.PositiveInfinity, previousStep = coarse.Step;
+        for (double t = maxTemperatureK; ; t = Math.Max(t / 4, minTemperatureK))
+        {
+            double step = 0.25 * t / k, half = 60 * t / k;
+            if (step < previousStep && half < previousHalf)
+            {
+                int points = 2 * (int)Math.Ceiling(half / step) + 1;
+                levels.Add(engine.Compute(new DosOptions { Points = points, Minimum = centre - half, Maximum = centre + half }));
+                previousHalf = half; previousStep = step;
+            }
+            if (t <= minTemperatureK) break;
+        }
+        return FromDensityOfStates(coarse, levels, model);
+    }
+
+    /// <summary>
+    /// Energy at which the integrated DOS (ascending, on the same grid) reaches <paramref name="electrons"/>: linear
+    /// between grid points; the middle of the plateau when the count is reached inside a gap.
+    /// </summary>
+    public static double FermiEnergy(IReadOnlyList<double> energies, IReadOnlyList<double> integrated, double electrons)
+    {
+        double tol = 1e-9 * Math.Max(1, electrons);
+        int first = -1, last = -1;
+        for (int i = 0; i < energies.Count; i++)
+            if (Math.Abs(integrated[i] - electrons) <= tol) { if (first < 0) first = i; last = i; }
+        if (first >= 0 && last > first) return 0.5 * (energies[first] + energies[last]);
+        for (int i = 1; i < energies.Count; i++)
+            if (integrated[i] >= electrons && integrated[i - 1] < electrons)
+            {
+                double s = (electrons - integrated[i - 1]) / (integrated[i] - integrated[i - 1]);
+                return energies[i - 1] + s * (energies[i] - energies[i - 1]);
+            }
+        throw new ArgumentException($"{electrons} electrons per cell: the DOS holds between {integrated[0]} and {integrated[^1]}");
+    }
+
+    private static TabulatedDos Build(IReadOnlyList<double> energies, IReadOnlyList<double> rho, IReadOnlyList<double> integrated,
+                                      double electrons, EnergyUnit unit, double formulaUnits)
+    {
+        double fermi = FermiEnergy(energies, integrated, electrons);
+        var probe = new TabulatedDos(energies, rho, 0.5 * TrapezoidTotal(energies, rho), unit, formulaUnits);
+        return new TabulatedDos(energies, rho, probe.StatesBelow(fermi), unit, formulaUnits);
+    }
+
+    private static double TrapezoidTotal(IReadOnlyList<double> e, IReadOnlyList<double> rho)
+    {
+        double s = 0;
+        for (int i = 1; i < e.Count; i++) s += 0.5 * (rho[i] + rho[i - 1]) * (e[i] - e[i - 1]);
+        return s;
+    }
+}

@@ -1,0 +1,63 @@
+using System.CommandLine;
+using Meanfield.Cli;
+using Meanfield.Cli.Commands;
+using Meanfield.Tests.Models;
+
+namespace Meanfield.Tests.Cli;
+
+public class HeatCommandTests : IDisposable
+{
+    private readonly string _dir = Directory.CreateTempSubdirectory("heatcli").FullName;
+    private static string Model(string name) => Path.Combine(ModelText.RepositoryRoot(), "models", name);
+
+    public void Dispose() => Directory.Delete(_dir, true);
+
+    private static (int Code, string Out, string Err) Run(params string[] args)
+    {
+        var o = new StringWriter(); var e = new StringWriter();
+        int code = Runner.Run(new RootCommand { HeatCommand.Build() }, ["heat", .. args], o, e);
+        return (code, o.ToString(), e.ToString());
+    }
+
+    [Fact]
+    public void BadMeasuredFileExitsTwoNamingTheLineAndWritesNothing()
+    {
+        var csv = Path.Combine(_dir, "bad.csv");
+        File.WriteAllText(csv, "# comment\nT_K,C_J_per_mol_K\n1,0.1\n2,abc\n3,0.3\n");
+        var outFile = Path.Combine(_dir, "heat.csv");
+        var (code, _, err) = Run(Model("heavy-metal-cubic.toml"), "--tmin", "1", "--tmax", "5", "--measured", csv, "--out", outFile);
+        Assert.Equal(ExitCodes.BadInput, code);
+        Assert.Contains("bad.csv:4:", err);
+        Assert.Equal([csv], Directory.GetFiles(_dir));
+    }
+
+    [Fact]
+    public void FitWindowWithTooFewPointsExitsTwoSayingHowManyAreNeeded()
+    {
+        var outFile = Path.Combine(_dir, "heat.csv");
+        var (code, _, err) = Run(Model("heavy-metal-cubic.toml"), "--tmin", "1", "--tmax", "5", "--points", "5",
+                                 "--dos-mesh", "8", "--fit-window", "1", "2.5", "--out", outFile);
+        Assert.Equal(ExitCodes.BadInput, code);
+        Assert.Contains("at least 3 points", err);
+        Assert.Contains("holds 2", err);
+        Assert.Empty(Directory.GetFiles(_dir));
+    }
+
+    [Fact]
+    public void WritesTableResidualsAndPictures()
+    {
+        var outFile = Path.Combine(_dir, "heat.csv");
+        var (code, stdout, err) = Run(Model("heavy-metal-cubic.toml"), "--tmin", "0.5", "--tmax", "10", "--points", "12", "--log",
+                                      "--dos-mesh", "12", "--measured", Path.Combine(ModelText.RepositoryRoot(), "models", "measured", "demo-heavy-metal-heat.csv"),
+                                      "--debye", "250", "--atoms", "4", "--out", outFile);
+        Assert.True(code == 0, err);
+        Assert.Contains("gamma =", stdout);
+        var lines = File.ReadAllLines(outFile);
+        Assert.StartsWith("#", lines[0]);
+        var header = lines.First(l => !l.StartsWith('#'));
+        Assert.Equal("T_K,C_J_per_mol_K,C_over_T_mJ_per_mol_K2,S_J_per_mol_K,node_C_J_per_mol_K,mu_minus_mu0", header);
+        Assert.Equal(12, lines.Count(l => !l.StartsWith('#')) - 1);
+        foreach (var f in new[] { "heat.residuals.csv", "heat.png", "heat.loglog.png" })
+            Assert.True(File.Exists(Path.Combine(_dir, f)), f);
+    }
+}
