@@ -85,8 +85,8 @@ public class ShippedWeylModelTests
 {
     [Theory]
     [InlineData(0, "")]
-    [InlineData(1, "--set=m=190")]
-    [InlineData(2, "--set=V=310")]
+    [InlineData(1, "--set=m=180")]
+    [InlineData(2, "--set=V=240")]
     public void ChiralitiesSumToZero(int seed, string perturbation)
     {
         var dir = CliRun.TempDir();
