@@ -26,6 +26,8 @@ public static class CommonOptions
 
     public static Option<int?> Mesh() => new("--mesh") { Description = "k-mesh divisions per reciprocal axis (default: model's [solver] or 16)" };
 
+    public static Option<bool> Bare() => new("--bare") { Description = "Use the bare model: f levels and hybridization unrenormalized" };
+
     public static Option<string> Out(bool required = true) => new("--out", "-o") { Description = "Output file", Required = required };
 
     public static Dictionary<string, string> ParseSets(string[]? sets)

@@ -10,17 +10,14 @@ public static class BandsCommand
 {
     public static Command Build()
     {
-        var input = CommonOptions.InputArgument();
-        var set = CommonOptions.Set();
-        var temperature = CommonOptions.Temperature();
-        var mesh = CommonOptions.Mesh();
+        var solution = new SolutionOptions();
         var output = CommonOptions.Out();
         var path = new Option<string>("--path") { Description = "\"auto\" (the lattice's standard path) or labels like \"G X W L G\" (| breaks the path)", DefaultValueFactory = _ => "auto" };
         var points = new Option<int>("--points") { Description = "k-points along the whole path", DefaultValueFactory = _ => 300 };
-        var bare = new Option<bool>("--bare") { Description = "Use the bare model: f levels and hybridization unrenormalized" };
         var weight = new Option<bool>("--no-weight") { Description = "Do not colour the bands by their correlated-orbital weight" };
         var command = new Command("bands", "Band energies along a high-symmetry path (CSV or Parquet by extension) and a picture (PNG next to it)")
-            { input, set, temperature, mesh, output, path, points, bare, weight };
+            { output, path, points, weight };
+        solution.AddTo(command);
         command.SetAction(parse =>
         {
             var o = parse.InvocationConfiguration.Output;
@@ -29,7 +26,7 @@ public static class BandsCommand
             if (ext is not (".csv" or ".parquet")) throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name");
             int count = parse.GetValue(points);
             if (count < 2) throw new UserInputException($"--points {count}: need at least 2");
-            var src = SolutionInput.Resolve(parse.GetValue(input)!, parse.GetValue(set), parse.GetValue(temperature), parse.GetValue(mesh), parse.GetValue(bare), o);
+            var src = solution.Resolve(parse, o);
             if (src.Model.IsMomentumFree) throw new UserInputException($"{src.Model.SourcePath}: a momentum-free lattice has no bands along a path; use `dos`");
             var spec = parse.GetValue(path)!;
             var bandPath = spec == "auto" ? BandPath.Default(src.Model.Lattice) : BandPath.Parse(spec, src.Model.Lattice);

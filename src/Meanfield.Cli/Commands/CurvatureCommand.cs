@@ -14,10 +14,7 @@ public static class CurvatureCommand
 {
     public static Command Build()
     {
-        var input = CommonOptions.InputArgument();
-        var set = CommonOptions.Set();
-        var temperature = CommonOptions.Temperature();
-        var mesh = CommonOptions.Mesh();
+        var solution = new SolutionOptions();
         var output = CommonOptions.Out();
         var plane = new Option<string>("--plane")
         {
@@ -26,9 +23,9 @@ public static class CurvatureCommand
         };
         var grid = new Option<int>("--grid") { Description = "Plaquettes along each span", DefaultValueFactory = _ => 48 };
         var searchMesh = NodesCommand.SearchMesh(12);
-        var bare = new Option<bool>("--bare") { Description = "Use the bare model: f levels and hybridization unrenormalized" };
         var command = new Command("curvature", "Berry curvature of the occupied bands on a plane of the zone: CSV table and heatmap (PNG next to it)")
-            { input, set, temperature, mesh, output, plane, grid, searchMesh, bare };
+            { output, plane, grid, searchMesh };
+        solution.AddTo(command);
         command.SetAction(parse =>
         {
             var o = parse.InvocationConfiguration.Output;
@@ -39,7 +36,7 @@ public static class CurvatureCommand
             int n = parse.GetValue(grid);
             if (n < 2 || n > 1000) throw new UserInputException($"--grid {n}: use 2..1000 plaquettes per span");
             int sm = NodesCommand.CheckSearchMesh(parse.GetValue(searchMesh));
-            var src = SolutionInput.Resolve(parse.GetValue(input)!, parse.GetValue(set), parse.GetValue(temperature), parse.GetValue(mesh), parse.GetValue(bare), o);
+            var src = solution.Resolve(parse, o);
             var model = src.Model;
             if (model.IsMomentumFree) throw new UserInputException($"{model.SourcePath}: a momentum-free lattice has no Berry curvature");
             if (model.Lattice.Dimension == 2 && (origin.Z != 0 || span1.Z != 0 || span2.Z != 0))

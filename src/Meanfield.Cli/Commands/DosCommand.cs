@@ -21,7 +21,7 @@ public static class DosCommand
         var window = new Option<double[]>("--window") { Description = "Energy window E1 E2 (model energy unit; default: the band range)", Arity = new ArgumentArity(2, 2), AllowMultipleArgumentsPerToken = true };
         var step = new Option<double?>("--step") { Description = "Energy step (default: bandwidth / 2000)" };
         var gaussian = new Option<double?>("--gaussian") { Description = "Gaussian broadening SIGMA (energy unit) instead of linear tetrahedra (smears the E^2 law near nodes)" };
-        var bare = new Option<bool>("--bare") { Description = "Use the bare model: f levels and hybridization unrenormalized" };
+        var bare = CommonOptions.Bare();
         var command = new Command("dos", "Density of states (tetrahedron method): table (CSV or Parquet by extension) and a picture (PNG next to it)")
             { input, set, temperature, output, mesh, window, step, gaussian, bare };
         command.SetAction(parse =>

@@ -17,15 +17,12 @@ public static class NodesCommand
 {
     public static Command Build()
     {
-        var input = CommonOptions.InputArgument();
-        var set = CommonOptions.Set();
-        var temperature = CommonOptions.Temperature();
-        var mesh = CommonOptions.Mesh();
+        var solution = new SolutionOptions();
         var output = CommonOptions.Out();
         var searchMesh = SearchMesh(16);
-        var bare = new Option<bool>("--bare") { Description = "Use the bare model: f levels and hybridization unrenormalized" };
         var command = new Command("nodes", "Band touchings (Weyl and Dirac nodes) between the highest occupied and lowest empty band, as JSON")
-            { input, set, temperature, mesh, output, searchMesh, bare };
+            { output, searchMesh };
+        solution.AddTo(command);
         command.SetAction(parse =>
         {
             var o = parse.InvocationConfiguration.Output;
@@ -33,8 +30,8 @@ public static class NodesCommand
             var outPath = parse.GetValue(output)!;
             if (!outPath.EndsWith(".json", StringComparison.OrdinalIgnoreCase)) throw new UserInputException($"--out {outPath}: use a .json file name");
             int sm = CheckSearchMesh(parse.GetValue(searchMesh));
-            var inputPath = parse.GetValue(input)!;
-            var src = SolutionInput.Resolve(inputPath, parse.GetValue(set), parse.GetValue(temperature), parse.GetValue(mesh), parse.GetValue(bare), o);
+            var inputPath = parse.GetValue(solution.Input)!;
+            var src = solution.Resolve(parse, o);
             if (!IsWholeFilling(src.Model))
             {
                 err.WriteLine(string.Create(CultureInfo.InvariantCulture,
