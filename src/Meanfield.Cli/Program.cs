@@ -10,5 +10,8 @@ var root = new RootCommand("meanfield: infinite-U auxiliary-boson mean field of 
     BandsCommand.Build(),
     KondoScaleCommand.Build(),
     ExportCommand.Build(),
+    ScanCommand.Build(),
+    MapCommand.Build(),
+    BenchCommand.Build(),
 };
 return Runner.Run(root, args);

@@ -12,7 +12,7 @@ public static class Runner
         var error = stderr ?? Console.Error;
         try
         {
-            var config = new InvocationConfiguration { Output = output, Error = error };
+            var config = new InvocationConfiguration { Output = output, Error = error, EnableDefaultExceptionHandler = false };
             return root.Parse(args).Invoke(config);
         }
         catch (ModelError e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
