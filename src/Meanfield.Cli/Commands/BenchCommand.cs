@@ -104,6 +104,6 @@ public static class BenchCommand
     /// <summary>Axis ranges of the benchmark scan (those of the shipped diamond scan).</summary>
     private static class BenchRange
     {
-        public const double VFrom = 40, VTo = 240, RatioFrom = 0, RatioTo = 3;
+        public const double VFrom = 240, VTo = 320, RatioFrom = 0, RatioTo = 3;
     }
 }
