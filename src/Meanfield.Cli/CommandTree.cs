@@ -18,5 +18,8 @@ public static class CommandTree
         HeatCommand.Build(),
         KondoScaleCommand.Build(),
         ExportCommand.Build(),
+        ScanCommand.Build(),
+        MapCommand.Build(),
+        BenchCommand.Build(),
     };
 }

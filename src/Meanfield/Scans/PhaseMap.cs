@@ -38,8 +38,10 @@ public static class PhaseMap
         if (!numeric)
         {
             var palette = new ScottPlot.Palettes.Category10();
-            var labels = rows.Select(r => color.Value(r.Row) as string ?? "(none)").Distinct().Order(StringComparer.Ordinal).ToList();
-            foreach (var (row, i, j) in rows)
+            // Points that did not converge carry no label: they are drawn hatched below, not as a category.
+            var labelled = rows.Where(r => r.Row.Result.Converged).ToList();
+            var labels = labelled.Select(r => color.Value(r.Row) as string ?? "(none)").Distinct().Order(StringComparer.Ordinal).ToList();
+            foreach (var (row, i, j) in labelled)
             {
                 var c = palette.GetColor(labels.IndexOf(color.Value(row) as string ?? "(none)"));
                 Cell(plot, xs, ys, i, j, c);
