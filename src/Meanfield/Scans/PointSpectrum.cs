@@ -35,9 +35,6 @@ public sealed record PointSpectrumColumns
 /// </summary>
 public static class PointSpectrum
 {
-    /// <summary>Nodes closer than this to mu (fraction of the bandwidth of the node search) count as pinned.</summary>
-    private const double PinnedFraction = 1e-3;
-
     /// <param name="renormalized">H_MF(k) of the solution.</param>
     /// <param name="model">The bound model (lattice, electron count, units).</param>
     /// <param name="mu">Chemical potential (energy unit).</param>
@@ -61,21 +58,15 @@ public static class PointSpectrum
         if (columns.Nodes && integerFilling && model.Lattice.Dimension == 3)
             nodes = NodeSearch.Find(renormalized, occupied, mu, new NodeSearchOptions { Mesh = Math.Max(8, mesh.N1) });
 
-        double energyTolerance = 0;
-        List<WeylNode> pinned = [];
-        if (nodes is not null)
-        {
-            double width = NodeWidth(renormalized, mesh);
-            energyTolerance = PinnedFraction * width;
-            pinned = nodes.Nodes.Where(n => Math.Abs(n.EnergyOffset) < energyTolerance).ToList();
-        }
+        double width = NodeWidth(renormalized, mesh);
+        var tolerances = SpectrumSummary.Tolerances(width, 0);
+        List<WeylNode> pinned = nodes is null ? [] : nodes.Nodes.Where(n => Math.Abs(n.EnergyOffset) < tolerances.EnergyTolerance).ToList();
 
         PhaseLabel label;
         if (!integerFilling)
             label = new PhaseLabel(Analysis.Phase.HeavyMetal, "non-integer electron count: a Fermi surface (Luttinger count)");
         else
-            label = PhaseClassifier.Classify(false, gap!, nodes, dos?.Total ?? 0,
-                new PhaseClassifier.Tolerances(GapTolerance: 1e-6, EnergyTolerance: Math.Max(energyTolerance, 1e-6), DosTolerance: 1e-3));
+            label = PhaseClassifier.Classify(false, gap!, nodes, dos?.Total ?? 0, tolerances);
 
         double? beta = null;
         if (columns.Heat && pinned.Count > 0 && pinned.All(n => n.DetVelocity > 0))
@@ -106,17 +97,8 @@ public static class PointSpectrum
     public static double SommerfeldGamma(double dosPerUnitPerCell, BoundModel model) =>
         HeatUnits.MolarFromPerCell(Math.PI * Math.PI / 3 * dosPerUnitPerCell / model.Unit.Kelvins(), model.FormulaUnitsPerCell);
 
-    /// <summary>The phase as written in the phase column.</summary>
-    public static string Label(Phase phase) => phase switch
-    {
-        Analysis.Phase.Decoupled => "decoupled",
-        Analysis.Phase.KondoInsulator => "Kondo insulator",
-        Analysis.Phase.WeylSemimetal => "Weyl semimetal",
-        Analysis.Phase.DiracSemimetal => "Dirac semimetal",
-        Analysis.Phase.NodalLine => "nodal line",
-        Analysis.Phase.HeavyMetal => "heavy metal",
-        _ => phase.ToString(),
-    };
+    /// <summary>The phase as written in the phase column: the same names as `solve` and `nodes` use.</summary>
+    public static string Label(Phase phase) => SpectrumSummary.Name(phase);
 
     private static double NodeWidth(IBlochSource source, KMesh mesh)
     {

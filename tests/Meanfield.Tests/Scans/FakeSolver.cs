@@ -33,7 +33,7 @@ internal sealed class FakeSolver
             Parameters = [new("V", v), new("lso", 20), new("m", ratio * 20)],
             DirectGap = ratio > 0.3 ? null : 2 * R(v, ratio),
             NodeCount = ratio > 0.3 ? 4 : 0,
-            Phase = ratio > 0.3 ? "Weyl semimetal" : "Kondo insulator",
+            Phase = ratio > 0.3 ? "weyl-semimetal" : "kondo-insulator",
             SolverState = [R(v, ratio), 0.5 * v, Mu(v, ratio)],
         };
     }

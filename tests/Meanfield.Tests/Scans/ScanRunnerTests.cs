@@ -64,7 +64,7 @@ public sealed class ScanRunnerTests : IDisposable
             Assert.Equal(FakeSolver.R(v[k], ratio[k]), r[k], 12);
             Assert.Equal((i + j) % 5 != 0, converged[k]);
             Assert.Equal(ratio[k] > 0.3 ? null : 2 * r[k], gap[k]);
-            Assert.Equal(ratio[k] > 0.3 ? "Weyl semimetal" : "Kondo insulator", phase[k]);
+            Assert.Equal(ratio[k] > 0.3 ? "weyl-semimetal" : "kondo-insulator", phase[k]);
         }
         Assert.Equal(4, converged.Count(c => !c)); // non-converged points are kept, not dropped
 

@@ -27,7 +27,7 @@ public sealed class ShippedScanTests : IDisposable
         string copy = Path.Combine(_dir, "scans", scan);
         File.Copy(Path.Combine(ScansFolder(), scan), copy);
         var d = ScanFileReader.Load(copy);
-        Assert.Equal(144, d.ToGrid().Count);
+        Assert.InRange(d.ToGrid().Count, 16, 400); // demo-sized: seconds to a minute on 2 cores
         Assert.InRange(d.Solver.Mesh, 8, 12);
         var p = d.ToGrid().Point(0);
         Assert.False(double.IsNaN(p.TemperatureK));
