@@ -143,6 +143,13 @@ public sealed class SaddlePointSolver
         return j;
     }
 
+    /// <summary>The coarse-mesh seed first, if any, then the built-in guesses, each evaluated only when reached.</summary>
+    private IEnumerable<double[]> Starts(double[]? seed)
+    {
+        if (seed is not null) yield return seed;
+        foreach (var guess in Guesses()) yield return guess;
+    }
+
     /// <summary>Built-in starting points: a sizeable r with the f level placed at the chemical potential.</summary>
     private IEnumerable<double[]> Guesses()
     {
@@ -163,7 +170,7 @@ public sealed class SaddlePointSolver
         _passes = 0;
         var seed = CoarseSeed(cancellation);
         Attempt? best = null;
-        foreach (var start in seed is null ? Guesses() : [seed.Value.Start, .. Guesses()])
+        foreach (var start in Starts(seed?.Start))
         {
             var attempt = Iterate(start, cancellation, seed is { } s && start == s.Start ? s.Jacobian : null);
             if (best is null || (attempt.Converged && !best.Converged) || (!best.Converged && attempt.Residual < best.Residual)) best = attempt;
@@ -260,7 +267,7 @@ public sealed class SaddlePointSolver
             }
             fresh = false;
             // Broyden keeps its Jacobian only while it pays: a step that did not halve the residual rebuilds it.
-            if (Norm(rn) > 0.5 * norm0) jac = null;
+            if (Norm(rn) > 0.5 * norm0 && Norm(rn) > 1e3 * _settings.Tolerance) jac = null;
             y = yn; res = rn; fill = fn;
         }
         var final = Unscaled(y, res);
