@@ -15,7 +15,7 @@ namespace Meanfield.Solver;
 /// (r, lambda) are iterated by Broyden's method (Broyden, Math. Comp. 19, 577 (1965)) from a finite-difference
 /// Jacobian, with a backtracking line search; the Jacobian is rebuilt when a step fails.
 /// </summary>
-public sealed class SaddlePointSolver
+public sealed partial class SaddlePointSolver
 {
     private readonly BoundModel _model;
     private readonly SolverSettings _settings;
@@ -143,27 +143,6 @@ public sealed class SaddlePointSolver
         return j;
     }
 
-    /// <summary>The coarse-mesh seed first, if any, then the built-in guesses, each evaluated only when reached.</summary>
-    private IEnumerable<double[]> Starts(double[]? seed)
-    {
-        if (seed is not null) yield return seed;
-        foreach (var guess in Guesses()) yield return guess;
-    }
-
-    /// <summary>Built-in starting points: a sizeable r with the f level placed at the chemical potential.</summary>
-    private IEnumerable<double[]> Guesses()
-    {
-        if (_settings.InitialGuess is { } guess && guess.GroupCount == G) yield return guess.Pack();
-        foreach (var fraction in new[] { 0.5, 0.2, 0.05 })
-        {
-            var x = new double[2 * G];
-            for (int g = 0; g < G; g++) { x[g] = Math.Sqrt(fraction * _groups[g].Q); x[G + g] = -_groups[g].Level; }
-            var (_, fill) = Evaluate(x);
-            for (int g = 0; g < G; g++) x[G + g] = fill.Mu - _groups[g].Level;
-            yield return x;
-        }
-    }
-
     public SaddlePoint Solve(CancellationToken cancellation = default)
     {
         var clock = Stopwatch.StartNew();
@@ -185,24 +164,6 @@ public sealed class SaddlePointSolver
     {
         public double Residual => MaxAbs(Res);
     }
-
-    /// <summary>
-    /// On fine meshes (24 divisions and more) with no starting point given, the saddle point of the half mesh: its
-    /// amplitudes and its Jacobian (in the mesh-independent variables ln r, lambda/E0) start the fine iteration, which
-    /// then needs a few zone passes instead of a dozen. A coarse failure just falls back to the built-in guesses.
-    /// </summary>
-    private (double[] Start, double[]? Jacobian)? CoarseSeed(CancellationToken ct)
-    {
-        if (_model.IsMomentumFree || _settings.InitialGuess is not null || _settings.Mesh < 24) return null;
-        var coarse = new SaddlePointSolver(_model, _settings with { Mesh = _settings.Mesh / 2, Tolerance = Math.Max(_settings.Tolerance, 1e-8) });
-        var sp = coarse.Solve(ct);
-        CoarsePasses = coarse._passes + coarse.CoarsePasses;
-        if (!sp.Converged || sp.Branch != SaddlePointBranch.Kondo) return null;
-        return (sp.Amplitudes.Pack(), coarse._lastJacobian);
-    }
-
-    /// <summary>Zone passes spent on the half-mesh start (each about 1/8 of a fine pass in 3D).</summary>
-    public int CoarsePasses { get; private set; }
 
     private double[]? _lastJacobian;
 
@@ -334,65 +295,4 @@ public sealed class SaddlePointSolver
     private string SamplingText() => _settings.Temperature > 0
         ? $"{_sum.Description}; Fermi-Dirac occupations at T = {_settings.Temperature:G6}"
         : $"{_sum.Description}; T = 0 step occupations";
-
-    /// <summary>
-    /// Stability of the decoupled solution: for every group, dF/d(r_g^2) per shell at r -&gt; 0 with lambda at its
-    /// decoupled value (energy unit). Negative means F falls as r grows: the coherent Kondo solution takes over. At mean
-    /// field the transition is continuous, so T_K^MF is where the smallest value crosses zero. To second order in the
-    /// hybridization each group's r enters alone (one f orbital per process), so the groups decouple here.
-    /// Null when no decoupled solution exists at this electron count.
-    /// </summary>
-    public double[]? DecoupledStability(double probe = 1e-6)
-    {
-        var decoupled = Decoupled();
-        if (decoupled is null) return null;
-        var x = new double[2 * G];
-        for (int g = 0; g < G; g++) { x[g] = probe; x[G + g] = decoupled.Amplitudes.Lambda[g]; }
-        var (res, _) = Evaluate(x);
-        var c = new double[G];
-        // res[G+g] = dF/dr per shell = 2 r dF/d(r^2)
-        for (int g = 0; g < G; g++) c[g] = res[G + g] / (2 * probe);
-        return c;
-    }
-
-    /// <summary>
-    /// The r = 0 solution: f shells hold Q electrons each at a level pinned near mu, decoupled from the conduction band,
-    /// which takes the remaining N_e - sum Q electrons. Per shell F_f = eps_f Q - T S_mf with the mean-field entropy
-    /// S_mf = N ln N - Q ln Q - (N - Q) ln(N - Q). Null when the conduction band cannot hold the remaining electrons.
-    /// </summary>
-    public SaddlePoint? Decoupled()
-    {
-        double t = _settings.Temperature;
-        double fElectrons = 0;
-        foreach (var g in _groups) fElectrons += g.Shells * g.Q;
-        double remaining = _model.ElectronsPerCell - fElectrons;
-        int conductionStates = _model.Orbitals.Count(o => o.Kind == OrbitalKind.Conduction) * _model.Flavours;
-        if (remaining < 0 || remaining > conductionStates) return null;
-        double far = 1e6 * (1 + Math.Abs(_groups.Max(g => Math.Abs(g.Level))));
-        var x = new double[2 * G];
-        for (int g = 0; g < G; g++) x[G + g] = far;
-        var table = _sum.Fill(MeanFieldAmplitudes.Unpack(x));
-        _passes++;
-        var fill = BandFilling.Compute(table, remaining, t);
-        double free = fill.GrandPotential + fill.Mu * remaining;
-        var groups = new ShellGroupSolution[G];
-        var lambda = new double[G];
-        for (int g = 0; g < G; g++)
-        {
-            var s = _groups[g];
-            double n = s.Degeneracy, q = s.Q;
-            double entropy = n * Math.Log(n) - q * Math.Log(q) - (n - q) * Math.Log(n - q);
-            free += s.Shells * (s.Level * q - t * entropy);
-            double offset = t * Math.Log((n - q) / q);
-            lambda[g] = fill.Mu + offset - s.Level;
-            groups[g] = new(s.Name, s.Shells, 0, lambda[g], s.Level, offset, q);
-        }
-        return new SaddlePoint
-        {
-            Converged = true, Iterations = 0, ResidualNorm = 0, Temperature = t, Mu = fill.Mu, FreeEnergy = free,
-            ElectronsPerCell = _model.ElectronsPerCell, Branch = SaddlePointBranch.Decoupled, Groups = groups,
-            Amplitudes = new MeanFieldAmplitudes(new double[G], lambda), DecoupledFreeEnergy = free, FermiLevel = fill.Status,
-            Sampling = SamplingText(),
-        };
-    }
 }
