@@ -70,7 +70,7 @@ public sealed record SolutionDocument
         Parameters = model.Parameters.ToDictionary(p => p.Key, p => p.Value),
         Sampling = new(sp.Sampling, model.IsMomentumFree ? null : settings.Mesh, model.IsMomentumFree ? null : settings.Shifted,
                        sp.Temperature > 0 ? "fermi-dirac" : "step"),
-        ModelPath = model.SourcePath, ModelSha256 = Provenance.Hash(model.SourceText), ToolVersion = Provenance.ToolVersion,
+        ModelPath = string.IsNullOrEmpty(model.SourcePath) ? "" : Path.GetFullPath(model.SourcePath), ModelSha256 = Provenance.Hash(model.SourceText), ToolVersion = Provenance.ToolVersion,
         Backend = Provenance.Backend, Created = Provenance.NowUtc(), WallSeconds = sp.WallSeconds, Notes = sp.Notes,
     };
 

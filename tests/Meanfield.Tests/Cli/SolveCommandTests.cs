@@ -20,6 +20,8 @@ public class SolveCommandTests
         foreach (var field in new[] { "converged", "iterations", "residual_norm", "temperature", "mu", "free_energy", "electrons_per_cell",
                                       "sites", "parameters", "sampling", "model_sha256", "tool_version", "backend" })
             Assert.True(root.TryGetProperty(field, out _), $"missing field {field}");
+        // An absolute model path: the solution stays usable from any working directory.
+        Assert.True(Path.IsPathRooted(root.GetProperty("model_path").GetString()));
         var site = root.GetProperty("sites")[0];
         foreach (var field in new[] { "name", "r", "lambda", "renormalized_level", "n_f", "z" })
             Assert.True(site.TryGetProperty(field, out _), $"missing site field {field}");
