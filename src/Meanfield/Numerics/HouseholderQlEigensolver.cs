@@ -47,11 +47,7 @@ public sealed class HouseholderQlEigensolver : IHermitianEigensolver
     public void Solve(Span<Complex> matrix, Span<double> values, Span<Complex> vectors)
     {
         int n = Size;
-        if (matrix.Length < n * n) throw new ArgumentException($"matrix needs {n * n} entries, has {matrix.Length}.", nameof(matrix));
-        if (values.Length < n) throw new ArgumentException($"values needs {n} entries, has {values.Length}.", nameof(values));
-        bool wantVectors = !vectors.IsEmpty;
-        if (wantVectors && vectors.Length < n * n)
-            throw new ArgumentException($"vectors needs {n * n} entries, has {vectors.Length}.", nameof(vectors));
+        bool wantVectors = EigenArguments.Check(n, matrix, values, vectors);
 
         Tridiagonalize(matrix);
         MakeOffDiagonalReal(matrix);
