@@ -21,6 +21,7 @@ public static class Runner
         catch (FileNotFoundException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
         catch (DirectoryNotFoundException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
         catch (ArgumentException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
+        catch (NoAnswerException e) { error.WriteLine($"no answer: {e.Message}"); return ExitCodes.NoAnswer; }
         catch (NotConvergedException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.NotConverged; }
         catch (OperationCanceledException) { error.WriteLine("cancelled"); return 130; }
         catch (Exception e)

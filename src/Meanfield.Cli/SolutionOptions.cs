@@ -1,10 +1,12 @@
 using System.CommandLine;
+using Meanfield.Solutions;
+using Meanfield.Solver;
 
 namespace Meanfield.Cli;
 
 /// <summary>
 /// The inputs every analysis command shares: INPUT (solution or model), --set, --temperature, --mesh and --bare, and
-/// the one way they turn into a <see cref="SolutionInput"/>.
+/// the one way they turn into the library's <see cref="Solution"/> handle.
 /// </summary>
 public sealed class SolutionOptions
 {
@@ -19,6 +21,27 @@ public sealed class SolutionOptions
         command.Add(Input); command.Add(Set); command.Add(Temperature); command.Add(Mesh); command.Add(Bare);
     }
 
-    public SolutionInput Resolve(ParseResult parse, TextWriter log) =>
-        SolutionInput.Resolve(parse.GetValue(Input)!, parse.GetValue(Set), parse.GetValue(Temperature), parse.GetValue(Mesh), parse.GetValue(Bare), log);
+    public Solution Resolve(ParseResult parse, TextWriter log) =>
+        Open(parse.GetValue(Input)!, parse.GetValue(Set), parse.GetValue(Temperature), parse.GetValue(Mesh), parse.GetValue(Bare), log);
+
+    /// <summary>
+    /// A solution file (.json) as written; a model file (.toml) solved on the fly (its one-line summary goes to
+    /// <paramref name="log"/>), or taken bare with <paramref name="bare"/> or when it has no correlated shell.
+    /// </summary>
+    public static Solution Open(string input, string[]? sets, string? temperature, int? mesh, bool bare, TextWriter log)
+    {
+        if (input.EndsWith(".json", StringComparison.OrdinalIgnoreCase))
+            return Solution.Load(input, CommonOptions.ParseSets(sets));
+        var model = CommonOptions.LoadModel(input, CommonOptions.ParseSets(sets));
+        if (bare || model.Shells.Count == 0)
+        {
+            if (model.IsMomentumFree) throw new UserInputException($"{input}: a momentum-free lattice has no bare k-resolved bands");
+            return Solution.Bare(model, mesh ?? model.Solver?.Mesh ?? 16);
+        }
+        var settings = CommonOptions.Settings(model, temperature, mesh);
+        var sp = new SaddlePointSolver(model, settings).Solve();
+        log.WriteLine(Summary.SolutionLine(sp, model));
+        if (!sp.Converged) throw new NotConvergedException(sp);
+        return Solution.FromSaddlePoint(model, sp, settings);
+    }
 }

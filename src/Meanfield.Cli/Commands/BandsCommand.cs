@@ -31,11 +31,11 @@ public static class BandsCommand
             var spec = parse.GetValue(path)!;
             var bandPath = spec == "auto" ? BandPath.Default(src.Model.Lattice) : BandPath.Parse(spec, src.Model.Lattice);
             var bands = BandStructure.Compute(src.Hamiltonian, bandPath.Sample(count));
-            var metadata = new Dictionary<string, string> { ["source"] = src.Origin, ["model_sha256"] = Provenance.Hash(src.Model.SourceText), ["tool_version"] = Provenance.ToolVersion };
-            if (src.Mu is { } mu) metadata["chemical_potential"] = mu.ToString("R", System.Globalization.CultureInfo.InvariantCulture);
+            var metadata = new Dictionary<string, string> { ["source"] = src.OriginText, ["model_sha256"] = Provenance.Hash(src.Model.SourceText), ["tool_version"] = Provenance.ToolVersion };
+            metadata["chemical_potential"] = src.Mu.ToString("R", System.Globalization.CultureInfo.InvariantCulture);
             BandTableWriter.Write(bands, outPath, metadata);
             var picture = Path.ChangeExtension(outPath, ".png");
-            var title = $"{src.Model.Name}: {(src.Origin == "bare model" ? "bare bands" : "renormalized bands")}";
+            var title = $"{src.Model.Name}: {(src.Origin == Solutions.SolutionOrigin.BareModel ? "bare bands" : "renormalized bands")}";
             BandPlot.Save(bands, picture, title, src.Model.Unit, src.Mu, colourByCorrelatedWeight: !parse.GetValue(weight) && src.Model.Shells.Count > 0);
             o.WriteLine($"wrote {outPath} and {picture} ({bands.Energies().GetLength(0)} k-points, {bands.Energies().GetLength(1)} bands)");
             return ExitCodes.Success;

@@ -41,12 +41,11 @@ public static class CurvatureCommand
             if (model.IsMomentumFree) throw new UserInputException($"{model.SourcePath}: a momentum-free lattice has no Berry curvature");
             if (model.Lattice.Dimension == 2 && (origin.Z != 0 || span1.Z != 0 || span2.Z != 0))
                 throw new UserInputException($"--plane: {model.Name} is two-dimensional; third reduced components must be 0");
-            int occ = NodesCommand.OccupiedBands(model, src.Hamiltonian.Size);
+            int occ = NodesCommand.OccupiedBands(src);
 
             var map = BerryCurvature.Compute(src.Hamiltonian, origin, span1, span2, n, n, occ);
-            double mu = src.Mu ?? MeshFermiLevel.Find(MeshSpectrum.Compute(src.Hamiltonian, new KMesh(model.Lattice, sm), false), model.ElectronsPerCell);
-            var nodes = NodeSearch.Find(src.Hamiltonian, occ, mu, new NodeSearchOptions { Mesh = sm });
-            if (nodes.IsMetal)
+            var nodes = SpectrumSummary.Compute(src, new SpectrumRequest { SearchMesh = sm, Dos = false, Heat = false }).Nodes!;
+            if (nodes.FermiSurfaceAwayFromNodes)
                 err.WriteLine($"warning: bands {occ - 1} and {occ} overlap (a metal): the curvature of the {occ} lowest bands is not that of the occupied states.");
             double bMin = Math.Min(model.Lattice.B1.Norm, model.Lattice.B2.Norm);
             var inPlane = PlaneNodes.Find(model.Lattice, origin, span1, span2, nodes.Nodes, 1e-4 * bMin);
@@ -54,9 +53,9 @@ public static class CurvatureCommand
             var inv = CultureInfo.InvariantCulture;
             var meta = new Dictionary<string, string>
             {
-                ["source"] = src.Origin, ["model"] = model.Name, ["model_sha256"] = Provenance.Hash(model.SourceText),
+                ["source"] = src.OriginText, ["model"] = model.Name, ["model_sha256"] = Provenance.Hash(model.SourceText),
                 ["tool_version"] = Provenance.ToolVersion,
-                ["nodes_in_plane"] = string.Join(" ", inPlane.Select(p => string.Create(inv, $"(s={p.S:F4} t={p.T:F4} chirality={p.Chirality:+0;-0;0})"))),
+                ["nodes_in_plane"] = string.Join(" ", inPlane.Select(p => string.Create(inv, $"(s={p.S:F4} t={p.T:F4} chirality={(p.Chirality is { } c ? c.ToString("+0;-0;0", inv) : "undetermined")})"))),
             };
             var picture = Path.ChangeExtension(outPath, ".png");
             CurvatureTableWriter.Write(map, outPath, meta);

@@ -40,7 +40,7 @@ public static class DosCommand
             var sigma = parse.GetValue(gaussian);
             if (sigma is { } g0 && !(g0 > 0)) throw new UserInputException($"--gaussian {g0}: must be positive");
 
-            var src = SolutionInput.Resolve(parse.GetValue(input)!, parse.GetValue(set), parse.GetValue(temperature), null, parse.GetValue(bare), o);
+            var src = SolutionOptions.Open(parse.GetValue(input)!, parse.GetValue(set), parse.GetValue(temperature), null, parse.GetValue(bare), o);
             var model = src.Model;
             if (model.IsMomentumFree) throw new UserInputException($"{model.SourcePath}: a momentum-free lattice has an analytic DOS; `dos` needs a lattice with momentum");
             var kmesh = new KMesh(model.Lattice, n);
@@ -64,23 +64,23 @@ public static class DosCommand
                 Method = sigma is null ? DosMethod.Tetrahedron : DosMethod.Gaussian, Sigma = sigma ?? 0,
             };
             var dos = tetra.Compute(options);
-            double mu = src.Mu ?? MeshFermiLevel.Find(tetra.Spectrum, model.ElectronsPerCell);
+            double mu = src.Mu;
             var atMu = tetra.DosAtEnergy(mu);
 
             var meta = new Dictionary<string, string>
             {
-                ["source"] = src.Origin, ["model"] = model.Name, ["model_sha256"] = Provenance.Hash(model.SourceText),
+                ["source"] = src.OriginText, ["model"] = model.Name, ["model_sha256"] = Provenance.Hash(model.SourceText),
                 ["tool_version"] = Provenance.ToolVersion, ["mesh"] = kmesh.ToString(),
-                ["mu_origin"] = src.Mu is null ? "filled on the mesh at T = 0" : "solution",
+                ["mu_rule"] = SolutionDocument.RuleName(src.MuRule),
             };
             DosTableWriter.Write(dos, mu, model.Unit, outPath, meta);
             var picture = Path.ChangeExtension(outPath, ".png");
-            DosPlot.Save(dos, mu, model.Unit, picture, $"{model.Name}: {(src.Origin == "bare model" ? "bare" : "renormalized")} DOS");
+            DosPlot.Save(dos, mu, model.Unit, picture, $"{model.Name}: {(src.Origin == Solutions.SolutionOrigin.BareModel ? "bare" : "renormalized")} DOS");
 
             var u = model.Unit.Symbol();
             double fu = model.FormulaUnitsPerCell;
             var inv = CultureInfo.InvariantCulture;
-            o.WriteLine(string.Create(inv, $"mu = {mu:G8} {u} ({(src.Mu is null ? "bare model, filled on the mesh at T = 0" : "from the solution")})"));
+            o.WriteLine(string.Create(inv, $"mu = {mu:G8} {u} ({SolutionDocument.RuleName(src.MuRule)}, {src.OriginText})"));
             o.WriteLine(string.Create(inv, $"DOS at mu: total {atMu.Total:G6}, correlated {atMu.Correlated:G6} states/{u} per cell; total {atMu.Total / fu:G6}, correlated {atMu.Correlated / fu:G6} per formula unit"));
             o.WriteLine($"wrote {outPath} and {picture} ({points} energies, {dos.Method})");
             return ExitCodes.Success;

@@ -20,15 +20,15 @@ public static class ExportCommand
         {
             var path = parse.GetValue(input)!;
             if (!path.EndsWith(".json", StringComparison.OrdinalIgnoreCase)) throw new UserInputException($"{path}: export needs a solution file (.json) from `solve`");
-            var src = SolutionInput.Resolve(path, null, null, null, false, TextWriter.Null);
-            var amp = ((RenormalizedHamiltonian)src.Hamiltonian).Amplitudes;
+            var src = Solutions.Solution.Load(path);
+            var amp = src.Amplitudes!;
             var renormalized = RenormalizedModel.Build(src.Model, amp);
             var outPath = parse.GetValue(output)!;
             var comment = $"meanfield {Provenance.ToolVersion} renormalized model of {src.Model.Name}; energies in {Units.EnergyUnits.Symbol(src.Model.Unit)}; chemical potential {src.Mu:R}; model sha256 {Provenance.Hash(src.Model.SourceText)}";
             if (parse.GetValue(format) == "hopping-table")
                 HoppingTable.FromModel(renormalized, comment).Save(outPath);
             else
-                AtomicFile.WriteText(outPath, RenormalizedModelJson.Write(renormalized, src.Mu ?? 0, comment));
+                AtomicFile.WriteText(outPath, RenormalizedModelJson.Write(renormalized, src.Mu, comment));
             parse.InvocationConfiguration.Output.WriteLine($"wrote {outPath}");
             return ExitCodes.Success;
         });

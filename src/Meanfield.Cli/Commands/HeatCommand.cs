@@ -51,7 +51,7 @@ public static class HeatCommand
                 parse.GetValue(reference), parse.GetValue(full), parse.GetValue(mfPoints), parse.GetValue(dosMesh));
             req.Validate();
             var measuredData = LoadMeasured(req);
-            var src = SolutionInput.Resolve(parse.GetValue(input)!, parse.GetValue(set), parse.GetValue(temperature), parse.GetValue(mesh), false, o);
+            var src = SolutionOptions.Open(parse.GetValue(input)!, parse.GetValue(set), parse.GetValue(temperature), parse.GetValue(mesh), false, o);
             return Run(req, src, measuredData, parse.GetValue(temperature), parse.GetValue(mesh), o, parse.InvocationConfiguration.Error);
         });
         return command;
@@ -101,7 +101,7 @@ public static class HeatCommand
     private static string Exists(string path) =>
         File.Exists(path) ? path : throw new UserInputException($"{path}: file not found");
 
-    private static int Run(Request req, SolutionInput src, MeasuredHeat? measured, string? temperature, int? mesh, TextWriter o, TextWriter error)
+    private static int Run(Request req, Solutions.Solution src, MeasuredHeat? measured, string? temperature, int? mesh, TextWriter o, TextWriter error)
     {
         var model = src.Model;
         if (model.IsMomentumFree || model.Lattice.Dimension < 2)
@@ -208,7 +208,7 @@ public static class HeatCommand
         return i == req.Points - 1 ? req.TMax : t;
     }).ToArray();
 
-    private static FermiLevelNodes? FindNodes(SolutionInput src, Binding.BoundModel model, double mu0, double pinning, TextWriter o)
+    private static FermiLevelNodes? FindNodes(Solutions.Solution src, Binding.BoundModel model, double mu0, double pinning, TextWriter o)
     {
         double n = model.ElectronsPerCell;
         int occupied = (int)Math.Round(n);
@@ -216,7 +216,7 @@ public static class HeatCommand
         var search = NodeSearch.Find(src.Hamiltonian, occupied, mu0);
         var nodes = FermiLevelNodes.From(search, model, Math.Max(pinning, 1e-9));
         if (nodes is null && search.Nodes.Count > 0)
-            o.WriteLine($"node search: {search.Nodes.Count} touchings of bands {occupied - 1} and {occupied}, none a type-I cone at E_F (closest {search.Nodes.Min(n => Math.Abs(n.EnergyOffset)):G3} {model.Unit.Symbol()} away){(search.IsMetal ? "; the spectrum is metallic" : "")}");
+            o.WriteLine($"node search: {search.Nodes.Count} touchings of bands {occupied - 1} and {occupied}, none a type-I cone at E_F (closest {search.Nodes.Min(n => Math.Abs(n.EnergyOffset)):G3} {model.Unit.Symbol()} away){(search.FermiSurfaceAwayFromNodes ? "; the spectrum is metallic" : "")}");
         return nodes;
     }
 
@@ -262,13 +262,13 @@ public static class HeatCommand
         return c;
     }
 
-    private static IEnumerable<string> Header(SolutionInput src, Binding.BoundModel model, int dosMesh, TabulatedDos dos, SommerfeldFit fit,
+    private static IEnumerable<string> Header(Solutions.Solution src, Binding.BoundModel model, int dosMesh, TabulatedDos dos, SommerfeldFit fit,
                                               MeasuredHeat? measured, Request req, MeanFieldHeatSweep? sweep)
     {
         var u = model.Unit.Symbol();
         yield return $"meanfield heat {Provenance.ToolVersion}, {Provenance.NowUtc()}";
         yield return $"model: {model.Name} ({model.SourcePath}), sha256 {Provenance.Hash(model.SourceText)}";
-        yield return $"saddle point: {src.Origin}{(src.Solution is { } sp ? $", T = {sp.Temperature * model.Unit.Kelvins():G5} K" : "")}{(src.Mu is { } mu ? $", mu = {mu:G8} {u}" : "")}";
+        yield return $"saddle point: {src.OriginText}, T = {src.Temperature * model.Unit.Kelvins():G5} K, mu = {src.Mu:G8} {u}";
         yield return $"quasiparticle DOS: linear tetrahedra on a Gamma-centred {dosMesh}-division mesh, {dos.Energies.Length} energies, fine near E_F; {dos.ElectronsPerCell:G8} electrons per cell (tabulated count)";
         yield return $"per mole of formula units ({model.FormulaUnitsPerCell:G6} per cell); C at fixed electron count with mu(T)";
         yield return $"units: T_K in K; C and S in J mol^-1 K^-1; C/T in mJ mol^-1 K^-2; node_C = analytic Weyl/Dirac-cone T^3 sum (empty without nodes at E_F); mu_minus_mu0 = mu(T) - mu(T->0) in {u}";

@@ -1,11 +1,12 @@
 using System.CommandLine;
 using Meanfield.Analysis;
 using Meanfield.Output;
+using Meanfield.Solutions;
 using Meanfield.Solver;
 
 namespace Meanfield.Cli.Commands;
 
-/// <summary>`meanfield solve MODEL --out solution.json`: the saddle point, its summary, and the JSON solution file.</summary>
+/// <summary>`meanfield solve MODEL --out solution.json`: the saddle point, its summary and digest, and the JSON solution file.</summary>
 public static class SolveCommand
 {
     public static Command Build()
@@ -23,39 +24,21 @@ public static class SolveCommand
             var bound = CommonOptions.LoadModel(parse.GetValue(model)!, CommonOptions.ParseSets(parse.GetValue(set)));
             var settings = CommonOptions.Settings(bound, parse.GetValue(temperature), parse.GetValue(mesh));
             var sp = new SaddlePointSolver(bound, settings).Solve();
-            o.WriteLine(Summary.Solution(sp, bound));
             if (!sp.Converged)
             {
+                o.WriteLine(Summary.Solution(sp, bound, null, null));
                 parse.InvocationConfiguration.Error.WriteLine($"error: not converged; {path} was not written");
                 return ExitCodes.NotConverged;
             }
-            var doc = SolutionDocument.From(sp, bound, settings);
-            if (!bound.IsMomentumFree)
-            {
-                var clock = System.Diagnostics.Stopwatch.StartNew();
-                var digest = Spectrum(sp, bound, settings);
-                o.WriteLine($"phase        {digest.PhaseName} ({digest.PhaseReason}; {clock.Elapsed.TotalSeconds:F2} s)");
-                doc = doc with
-                {
-                    Phase = digest.PhaseName, PhaseReason = digest.PhaseReason, DirectGap = Finite(digest.DirectGap),
-                    IndirectGap = Finite(digest.IndirectGap), DosFermiTotal = Finite(digest.DosFermiTotal),
-                    DosFermiCorrelated = Finite(digest.DosFermiCorrelated),
-                };
-            }
-            doc.Save(path);
+            var clock = System.Diagnostics.Stopwatch.StartNew();
+            var solution = Solution.FromSaddlePoint(bound, sp, settings);
+            var digest = SpectrumSummary.Compute(solution);
+            o.WriteLine(Summary.Solution(sp, bound, solution, digest));
+            if (digest.Phase is { } phase) o.WriteLine($"phase        {phase.Name} ({phase.Reason}; {clock.Elapsed.TotalSeconds:F2} s)");
+            SolutionDocument.From(solution, digest).Save(path);
             o.WriteLine($"wrote {path}");
             return ExitCodes.Success;
         });
         return command;
     }
-
-    private static SpectrumDigest Spectrum(SaddlePoint sp, Binding.BoundModel model, SolverSettings settings)
-    {
-        var mesh = new Lattices.KMesh(model.Lattice, settings.Mesh, settings.Shifted);
-        var renormalized = new Renormalization.RenormalizedHamiltonian(new Bloch.BlochHamiltonian(model), sp.Amplitudes);
-        return SpectrumSummary.Compute(renormalized, model, sp.Mu, sp.Branch == SaddlePointBranch.Decoupled, mesh,
-                                       energyTolerance: sp.Temperature);
-    }
-
-    private static double? Finite(double v) => double.IsFinite(v) ? v : null;
 }

@@ -1,42 +1,76 @@
+using System.Globalization;
 using Meanfield.Analysis.Gaps;
 using Meanfield.Analysis.Nodes;
 
 namespace Meanfield.Analysis;
 
 /// <summary>
-/// Labels a solution. Rules, applied in order (energies in the model's unit, tolerances in <see cref="Tolerances"/>):
+/// Labels a solution: the one phase rule of meanfield. Energies in the model's unit; every tolerance comes from the
+/// node search's <see cref="SpectrumTolerances"/> (relative to the width of the bands next to the electron count and to
+/// k_B T). Rules, in order:
 /// 1. all boson amplitudes r = 0 -> Decoupled;
-/// 2. indirect gap &gt; GapTolerance on the mesh and no band touching found by the node search -> KondoInsulator
-///    (common practice: a Kondo insulator is a band insulator of the renormalized bands; a coarse mesh can miss a
-///    node and report a positive gap, so found nodes take precedence);
-/// 3. the node search reports a metal (bands n_occ - 1 and n_occ overlap, or mu cuts a band), or the DOS at the
-///    Fermi level exceeds DosTolerance while no node sits at mu -> HeavyMetal;
-/// 4. a nodal line at mu -> NodalLine;
-/// 5. nodes with |E - mu| &lt; EnergyTolerance: any of nonzero chirality -> WeylSemimetal; otherwise fourfold ones
-///    -> DiracSemimetal;
-/// 6. anything else (touchings away from mu, no node data) -> HeavyMetal.
+/// 2. a partly filled band (non-integer electron count) -> HeavyMetal (a Fermi surface by the Luttinger count);
+/// 3. a nodal line -> NodalLine;
+/// 4. bands n_occ - 1 and n_occ overlapping beyond what the node energies explain -> HeavyMetal;
+/// 5. chiralities undetermined, not summing to zero (Nielsen &amp; Ninomiya, Nucl. Phys. B 185, 20 (1981)), or a gap
+///    minimum that would not refine -> Unresolved, with the advice to refine: never a topological label on an
+///    unresolved search;
+/// 6. no node: indirect gap above the gap tolerance -> KondoInsulator (common practice: a band insulator of the
+///    renormalized bands); otherwise Unresolved (the bands touch on the mesh but no touching refined);
+/// 7. nodes: all pinned at mu -> WeylSemimetal when some chirality is nonzero, else DiracSemimetal; some off mu ->
+///    the same with pockets.
 /// </summary>
 public static class PhaseClassifier
 {
-    public sealed record Tolerances(double GapTolerance = 1e-6, double EnergyTolerance = 1e-6, double DosTolerance = 1e-3);
-
-    public static PhaseLabel Classify(bool decoupled, GapReport gap, NodeSearchResult? nodes, double dosAtFermi, Tolerances? tol = null)
+    /// <summary>The label of a solution from its branch, electron count, gaps and node search.</summary>
+    /// <param name="decoupled">True on the r = 0 branch.</param>
+    /// <param name="wholeFilling">The electron count fills a whole number of bands (otherwise a metal).</param>
+    /// <param name="gap">Gaps between bands n_occ - 1 and n_occ; null for a partly filled band.</param>
+    /// <param name="nodes">The node search; null for a partly filled band.</param>
+    /// <exception cref="ArgumentException">A whole filling without gap or node data.</exception>
+    public static PhaseLabel Classify(bool decoupled, bool wholeFilling, GapReport? gap, NodeSearchResult? nodes)
     {
-        var t = tol ?? new Tolerances();
+        var inv = CultureInfo.InvariantCulture;
         if (decoupled) return new(Phase.Decoupled, "all boson amplitudes vanish (r = 0)");
-        if (gap.Indirect > t.GapTolerance && (nodes is null || nodes.Nodes.Count == 0))
-            return new(Phase.KondoInsulator, $"indirect gap {gap.Indirect:G4} > {t.GapTolerance:G3}");
-        var atMu = nodes?.Nodes.Where(n => Math.Abs(n.EnergyOffset) < t.EnergyTolerance).ToList() ?? [];
-        if (nodes is { IsMetal: true })
-            return new(Phase.HeavyMetal, $"bands overlap by {nodes.BandOverlap:G4} or the chemical potential cuts a band");
-        if (atMu.Count == 0 && dosAtFermi > t.DosTolerance)
-            return new(Phase.HeavyMetal, $"DOS at the Fermi level {dosAtFermi:G4} and no node at mu");
-        if (nodes is { NodalLineSuspected: true } && atMu.Count > 0)
-            return new(Phase.NodalLine, $"{atMu.Count} touching points at mu form a line");
-        if (atMu.Any(n => n.Chirality != 0))
-            return new(Phase.WeylSemimetal, $"{atMu.Count(n => n.Chirality != 0)} Weyl nodes at mu, chiralities sum to {nodes!.ChiralitySum}");
-        if (atMu.Any(n => n.Degeneracy >= 4))
-            return new(Phase.DiracSemimetal, $"{atMu.Count(n => n.Degeneracy >= 4)} fourfold nodes at mu with zero chirality");
-        return new(Phase.HeavyMetal, nodes is null ? "no gap and no node data" : "no gap and no node pinned at mu");
+        if (!wholeFilling) return new(Phase.HeavyMetal, "the electron count fills a band partly: a Fermi surface (Luttinger count)");
+        if (gap is null || nodes is null) throw new ArgumentException("a whole filling needs the gap report and the node search");
+        var t = nodes.Tolerances;
+        if (nodes.NodalLineSuspected) return new(Phase.NodalLine, $"{nodes.Nodes.Count} touching points form a line or a flat cone");
+        if (nodes.FermiSurfaceAwayFromNodes)
+            return new(Phase.HeavyMetal, string.Create(inv, $"bands {nodes.OccupiedBands - 1} and {nodes.OccupiedBands} overlap by {nodes.BandOverlap:G4}: a Fermi surface away from the nodes"));
+        if (!nodes.ChiralitiesResolved)
+            return new(Phase.Unresolved, $"the chirality of {nodes.Nodes.Count(n => n.Chirality is null)} node(s) is undetermined; refine the node search (a finer search mesh)");
+        if (nodes.ChiralitySum is { } sum && sum != 0)
+            return new(Phase.Unresolved, $"chiralities sum to {sum}, not zero: nodes were missed; refine the node search (a finer search mesh)");
+        if (nodes.UnresolvedMinima > 0)
+            return new(Phase.Unresolved, $"{nodes.UnresolvedMinima} gap minima below {string.Create(inv, $"{t.Gap:G3}")} did not refine to a touching; refine the node search");
+        if (nodes.Nodes.Count == 0)
+            return gap.Indirect > t.Gap
+                ? new(Phase.KondoInsulator, string.Create(inv, $"indirect gap {gap.Indirect:G4} (> {t.Gap:G3}) and no band touching"))
+                : new(Phase.Unresolved, string.Create(inv, $"indirect gap {gap.Indirect:G4} within the tolerance {t.Gap:G3} but no touching refined; refine the node search"));
+        int weyl = nodes.Nodes.Count(n => n.Chirality is { } c && c != 0);
+        int pinned = nodes.Nodes.Count(n => n.Pinning == NodePinning.Pinned);
+        string kind = weyl > 0 ? "Weyl" : "Dirac";
+        string sumText = nodes.ChiralitySum is { } s ? $", chiralities sum to {s}" : "";
+        if (pinned == nodes.Nodes.Count)
+            return new(weyl > 0 ? Phase.WeylSemimetal : Phase.DiracSemimetal,
+                       string.Create(inv, $"{nodes.Nodes.Count} {kind} nodes pinned at mu (within {t.Pinning:G3}){sumText}"));
+        double worst = nodes.Nodes.Max(n => Math.Abs(n.EnergyOffset));
+        return new(weyl > 0 ? Phase.WeylSemimetalWithPockets : Phase.DiracSemimetalWithPockets,
+                   string.Create(inv, $"{nodes.Nodes.Count - pinned} of {nodes.Nodes.Count} {kind} nodes off mu (up to {worst:G4}): pockets around them{sumText}"));
     }
+
+    /// <summary>File form of a phase: lower-case words joined by '-'.</summary>
+    public static string Name(Phase phase) => phase switch
+    {
+        Phase.Decoupled => "decoupled",
+        Phase.KondoInsulator => "kondo-insulator",
+        Phase.WeylSemimetal => "weyl-semimetal",
+        Phase.DiracSemimetal => "dirac-semimetal",
+        Phase.WeylSemimetalWithPockets => "weyl-semimetal-with-pockets",
+        Phase.DiracSemimetalWithPockets => "dirac-semimetal-with-pockets",
+        Phase.NodalLine => "nodal-line",
+        Phase.Unresolved => "unresolved",
+        _ => "heavy-metal",
+    };
 }

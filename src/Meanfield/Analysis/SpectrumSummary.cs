@@ -1,89 +1,107 @@
 using Meanfield.Analysis.Dos;
 using Meanfield.Analysis.Gaps;
 using Meanfield.Analysis.Nodes;
-using Meanfield.Binding;
-using Meanfield.Bloch;
+using Meanfield.Heat;
 using Meanfield.Lattices;
+using Meanfield.Solutions;
+using Meanfield.Units;
 
 namespace Meanfield.Analysis;
 
-/// <summary>
-/// The cheap per-solution spectral digest shown by `solve` and stored per scan point: gaps, nodes near the Fermi
-/// level, the Fermi-level DOS and the phase label. Energies in the model's unit; DOS in states per cell per energy unit
-/// (all flavours). Gaps and node fields are NaN / 0 when the filling is not an integer number of bands (a metal).
-/// </summary>
-/// <param name="DirectGap">min_k [E_nocc(k) - E_nocc-1(k)] on the mesh.</param>
-/// <param name="IndirectGap">min_k E_nocc - max_k E_nocc-1 on the mesh (negative for overlapping bands).</param>
-/// <param name="NodeCount">Band touchings between bands n_occ - 1 and n_occ found in the zone.</param>
-/// <param name="MaxNodeOffset">Largest |E_node - mu| over the nodes (NaN without nodes).</param>
-/// <param name="NetChirality">Sum of node chiralities (zero over a complete search).</param>
-/// <param name="AbsChirality">Sum of |chirality|: twice the number of Weyl pairs.</param>
-public sealed record SpectrumDigest(
-    double DirectGap, double IndirectGap, double DosFermiTotal, double DosFermiCorrelated,
-    int NodeCount, double MaxNodeOffset, int NetChirality, int AbsChirality, Phase Phase, string PhaseReason,
-    NodeSearchResult? Nodes, GapReport? Gaps)
+/// <summary>What a digest should contain beyond the phase label, which is always computed.</summary>
+public sealed record SpectrumRequest
 {
-    /// <summary>Phase label as written into files: "kondo-insulator", "weyl-semimetal", ...</summary>
-    public string PhaseName => SpectrumSummary.Name(Phase);
+    /// <summary>Coarse mesh of the node search (default <see cref="NodeSearchOptions.DefaultMesh"/>; 4 to 96).</summary>
+    public int SearchMesh { get; init; } = NodeSearchOptions.DefaultMesh;
+    /// <summary>Compute the DOS at mu (tetrahedra on the solution mesh's divisions, Gamma-centred) and gamma (default true).</summary>
+    public bool Dos { get; init; } = true;
+    /// <summary>Compute the node heat coefficient beta (default true).</summary>
+    public bool Heat { get; init; } = true;
 }
 
-/// <summary>Computes a <see cref="SpectrumDigest"/>; the one place `solve` and scans get their phase label from.</summary>
+/// <summary>
+/// The one per-solution spectral digest: gaps, the node search, the DOS at mu, the phase label and the flat columns
+/// written to files. `solve`, `nodes`, `dos`, `heat`, `scan` and the solution JSON all read it from
+/// <see cref="SpectrumSummary.Compute"/>.
+/// </summary>
+/// <param name="Mu">The chemical potential everything is measured from (the solution's).</param>
+/// <param name="Phase">The phase label (<see cref="PhaseClassifier"/>), null for momentum-free lattices.</param>
+/// <param name="Gaps">Gaps between bands n_occ - 1 and n_occ (null for a partly filled band or no k-space).</param>
+/// <param name="Nodes">The node search (null for a partly filled band or no k-space).</param>
+/// <param name="DosAtMu">DOS at mu when asked for.</param>
+/// <param name="Columns">The flat numbers for files.</param>
+public sealed record SpectrumDigest(double Mu, PhaseLabel? Phase, GapReport? Gaps, NodeSearchResult? Nodes, DosValue? DosAtMu,
+                                    SpectrumColumns Columns);
+
+/// <summary>Computes the <see cref="SpectrumDigest"/> of a <see cref="Solution"/>.</summary>
 public static class SpectrumSummary
 {
-    /// <summary>Coarse mesh of the node search inside the digest: enough for the shipped models' node pairs.</summary>
-    public const int DefaultSearchMesh = 10;
-
-    /// <summary>
-    /// Digest of <paramref name="renormalized"/> at chemical potential <paramref name="mu"/>. The DOS and gaps use a
-    /// Gamma-centred mesh with the divisions of <paramref name="mesh"/> (the tetrahedron method needs the zone centre);
-    /// nodes are searched on a <paramref name="searchMesh"/> mesh. Nodes count as "at the Fermi level" within
-    /// max(1e-3 bandwidth, <paramref name="energyTolerance"/>): a finite-temperature mean-field mu sits at the node
-    /// only up to terms of order T^2, and a node that small a fraction of the band away leaves Fermi pockets too small
-    /// to matter next to the cone (the Weyl-Kondo regime).
-    /// </summary>
-    public static SpectrumDigest Compute(IBlochSource renormalized, BoundModel model, double mu, bool decoupled, KMesh mesh,
-                                         int searchMesh = DefaultSearchMesh, double energyTolerance = 0)
+    /// <summary>The digest of <paramref name="solution"/> for <paramref name="request"/> (defaults when null).</summary>
+    /// <exception cref="ArgumentOutOfRangeException">A search mesh outside 4..96.</exception>
+    public static SpectrumDigest Compute(Solution solution, SpectrumRequest? request = null)
     {
-        if (model.IsMomentumFree) throw new ArgumentException("A momentum-free lattice has no k-resolved spectrum to classify.");
-        var gammaMesh = new KMesh(mesh.Lattice, mesh.N1, mesh.N2, mesh.N3, shifted: false);
-        var dos = new TetrahedronDos(renormalized, gammaMesh);
-        var (lo, hi) = dos.Spectrum.Range();
-        double width = Math.Max(hi - lo, 1e-300);
-        var atMu = dos.DosAtEnergy(mu);
-        double electrons = model.ElectronsPerCell;
-        int occupied = (int)Math.Round(electrons);
-        bool integer = Math.Abs(electrons - occupied) < 1e-9 && occupied >= 1 && occupied < renormalized.Size;
-        var tol = Tolerances(width, energyTolerance);
-        if (!integer)
+        var req = request ?? new SpectrumRequest();
+        if (req.SearchMesh is < 4 or > 96) throw new ArgumentOutOfRangeException(nameof(request), $"search mesh {req.SearchMesh}: use 4..96 divisions");
+        var model = solution.Model;
+        double mu = solution.Mu;
+        if (model.IsMomentumFree || solution.Mesh is null)
         {
-            var label = decoupled ? new PhaseLabel(Phase.Decoupled, "all boson amplitudes vanish (r = 0)")
-                                  : new PhaseLabel(Phase.HeavyMetal, $"{electrons:G6} electrons per cell fill a band partly");
-            return new(double.NaN, double.NaN, atMu.Total, atMu.Correlated, 0, double.NaN, 0, 0, label.Phase, label.Reason, null, null);
+            var label = solution.Decoupled ? new PhaseLabel(Phase.Decoupled, "all boson amplitudes vanish (r = 0)") : null;
+            return new(mu, label, null, null, null, new SpectrumColumns { Phase = label?.Name, PhaseReason = label?.Reason });
         }
-        var gaps = GapFinder.Find(dos.Spectrum, occupied);
-        var nodes = NodeSearch.Find(renormalized, occupied, mu, new NodeSearchOptions { Mesh = searchMesh });
-        var phase = PhaseClassifier.Classify(decoupled, gaps, nodes, atMu.Total, tol);
-        double maxOffset = nodes.Nodes.Count == 0 ? double.NaN : nodes.Nodes.Max(n => Math.Abs(n.EnergyOffset));
-        return new(gaps.Direct, gaps.Indirect, atMu.Total, atMu.Correlated, nodes.Nodes.Count, maxOffset,
-                   nodes.ChiralitySum, nodes.Nodes.Sum(n => Math.Abs(n.Chirality)), phase.Phase, phase.Reason, nodes, gaps);
+        DosValue? dos = null;
+        if (req.Dos || solution.Decoupled)
+        {
+            var m = solution.Mesh;
+            dos = new TetrahedronDos(solution.Hamiltonian, new KMesh(model.Lattice, m.N1, m.N2, m.N3, shifted: false)).DosAtEnergy(mu);
+        }
+        GapReport? gaps = null;
+        NodeSearchResult? nodes = null;
+        if (solution.WholeFilling && !solution.Decoupled)
+        {
+            int occ = solution.OccupiedBands;
+            var options = new NodeSearchOptions { Mesh = req.SearchMesh, Temperature = solution.Temperature };
+            nodes = solution.PlacementNodes is { } p && p.ChemicalPotential == mu && req.SearchMesh == NodeSearchOptions.DefaultMesh && solution.Temperature == 0
+                ? p : NodeSearch.Find(solution.Hamiltonian, occ, mu, options);
+            gaps = Gaps(solution, occ, nodes);
+        }
+        var phase = PhaseClassifier.Classify(solution.Decoupled, solution.WholeFilling, gaps, nodes);
+        double? beta = null;
+        if (req.Heat && nodes is not null && phase.Phase is Phase.WeylSemimetal or Phase.DiracSemimetal
+            && FermiLevelNodes.From(nodes, model, nodes.Tolerances.Pinning) is { } fln)
+            beta = 1e3 * fln.MolarBeta;
+        var columns = new SpectrumColumns
+        {
+            Phase = phase.Name, PhaseReason = phase.Reason,
+            DirectGap = gaps?.Direct, IndirectGap = gaps?.Indirect,
+            DosFermiTotal = dos?.Total, DosFermiCorrelated = dos?.Correlated,
+            NodeCount = nodes?.Nodes.Count, PinnedNodes = nodes?.Nodes.Count(n => n.Pinning == NodePinning.Pinned),
+            MaxNodeOffset = nodes is null ? null : nodes.Nodes.Count == 0 ? 0 : nodes.Nodes.Max(n => Math.Abs(n.EnergyOffset)),
+            NetChirality = nodes?.ChiralitySum, AbsChirality = nodes?.AbsChirality,
+            GammaMilliJoulePerMolK2 = req.Dos && dos is { } d ? 1e3 * SommerfeldGamma(d.Total, model) : null,
+            BetaMilliJoulePerMolK4 = beta,
+        };
+        return new(mu, phase, gaps, nodes, dos, columns);
+    }
+
+    // Gaps on the coarse search mesh, with the refined nodes included: a touching between mesh points closes the gap.
+    private static GapReport Gaps(Solution solution, int occ, NodeSearchResult nodes)
+    {
+        var g = GapFinder.Find(solution.Hamiltonian, new KMesh(solution.Model.Lattice, solution.Mesh!.N1, solution.Mesh.N2, solution.Mesh.N3, solution.Mesh.Shifted), occ);
+        if (nodes.Nodes.Count == 0) return g;
+        var lowest = nodes.Nodes.MinBy(n => n.Gap)!;
+        double hi = nodes.Nodes.Max(n => n.Energy), lo = nodes.Nodes.Min(n => n.Energy);
+        var (vmax, vAt) = hi > g.ValenceMaximum ? (hi, nodes.Nodes.MaxBy(n => n.Energy)!.Cartesian) : (g.ValenceMaximum, g.ValenceMaximumAt);
+        var (cmin, cAt) = lo < g.ConductionMinimum ? (lo, nodes.Nodes.MinBy(n => n.Energy)!.Cartesian) : (g.ConductionMinimum, g.ConductionMinimumAt);
+        var (direct, dAt) = lowest.Gap < g.Direct ? (lowest.Gap, lowest.Cartesian) : (g.Direct, g.DirectAt);
+        return g with { Direct = direct, DirectAt = dAt, ValenceMaximum = vmax, ValenceMaximumAt = vAt, ConductionMinimum = cmin,
+                        ConductionMinimumAt = cAt, Indirect = cmin - vmax };
     }
 
     /// <summary>
-    /// Tolerances of the phase label for a spectrum of total width <paramref name="width"/>: a gap counts above 1e-6 of
-    /// the width; a node is "at mu" within max(1e-3 width, <paramref name="temperature"/>); the DOS at mu counts above
-    /// 1e-3 state per cell per width.
+    /// gamma = (pi^2/3) k_B^2 rho(E_F) (Ashcroft &amp; Mermin, Solid State Physics (1976), ch. 2), rho per energy unit per
+    /// cell, as J mol^-1 K^-2 per mole of formula units.
     /// </summary>
-    public static PhaseClassifier.Tolerances Tolerances(double width, double temperature) =>
-        new(GapTolerance: 1e-6 * width, EnergyTolerance: Math.Max(1e-3 * width, temperature), DosTolerance: 1e-3 / width);
-
-    /// <summary>File form of a phase: lower-case words joined by '-'.</summary>
-    public static string Name(Phase phase) => phase switch
-    {
-        Phase.Decoupled => "decoupled",
-        Phase.KondoInsulator => "kondo-insulator",
-        Phase.WeylSemimetal => "weyl-semimetal",
-        Phase.DiracSemimetal => "dirac-semimetal",
-        Phase.NodalLine => "nodal-line",
-        _ => "heavy-metal",
-    };
+    public static double SommerfeldGamma(double dosPerUnitPerCell, Binding.BoundModel model) =>
+        HeatUnits.MolarFromPerCell(Math.PI * Math.PI / 3 * dosPerUnitPerCell / model.Unit.Kelvins(), model.FormulaUnitsPerCell);
 }

@@ -24,7 +24,7 @@ public sealed record FermiLevelNodes(IReadOnlyList<WeylNode> Nodes, int Cones, d
     /// <param name="pinning">Largest |E_node - mu| (energy unit) still taken as "at the Fermi level".</param>
     public static FermiLevelNodes? From(NodeSearchResult search, BoundModel model, double pinning)
     {
-        if (search.IsMetal || search.NodalLineSuspected || model.Lattice.Dimension != 3) return null;
+        if (search.FermiSurfaceAwayFromNodes || search.NodalLineSuspected || model.Lattice.Dimension != 3) return null;
         var counted = search.Nodes.Where(n => Math.Abs(n.EnergyOffset) <= pinning && n.Type == NodeType.TypeI
                                               && n.DetVelocity > 0).ToList();
         if (counted.Count == 0) return null;

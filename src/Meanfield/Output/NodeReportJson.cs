@@ -10,18 +10,24 @@ using Meanfield.Units;
 namespace Meanfield.Output;
 
 /// <summary>
-/// The JSON report of `meanfield nodes`: every touching of bands n_occ - 1 and n_occ with its position (reduced and
-/// Cartesian, 1/angstrom), energy minus mu, chirality and raw Berry flux over 2 pi, cone velocity tensor (energy unit
-/// x angstrom), tilt and type; the chirality sum, the gap report, the Fermi-level DOS and the phase label.
-/// Non-finite numbers are written as null.
+/// The JSON report of `meanfield nodes`, grouped by orbit (nodes that a lattice operation maps onto each other at one
+/// energy): per orbit its energy, offset from mu and pinning, and per member its position (reduced and Cartesian,
+/// 1/angstrom), location, chirality (null when undetermined) with the Berry flux behind it, and its cone (velocity
+/// tensor in energy unit x angstrom, tilt, type); then the totals, the tolerances judged by, the gaps, the DOS at mu and
+/// the phase label: all from the one spectrum digest. No number is written as NaN.
 /// </summary>
 public static class NodeReportJson
 {
-    public const string FormatTag = "meanfield-nodes/1";
+    public const string FormatTag = "meanfield-nodes/2";
 
-    public static string Build(NodeSearchResult nodes, GapReport gaps, DosValue dosFermi, double formulaUnits, PhaseLabel phase,
-                               Lattice lattice, EnergyUnit unit, IReadOnlyDictionary<string, string> provenance)
+    /// <summary>The report of <paramref name="digest"/> (which must hold a node search and gaps) for <paramref name="solution"/>.</summary>
+    /// <exception cref="ArgumentException">A digest without a node search.</exception>
+    public static string Build(Solutions.Solution solution, SpectrumDigest digest, IReadOnlyDictionary<string, string> provenance)
     {
+        var nodes = digest.Nodes ?? throw new ArgumentException("the digest holds no node search");
+        var gaps = digest.Gaps!;
+        var unit = solution.Model.Unit;
+        var lattice = solution.Model.Lattice;
         using var ms = new MemoryStream();
         using (var w = new Utf8JsonWriter(ms, new JsonWriterOptions { Indented = true }))
         {
@@ -31,18 +37,48 @@ public static class NodeReportJson
             w.WriteString("energy_unit", unit.Symbol());
             w.WriteString("k_unit", "1/angstrom");
             w.WriteString("velocity_unit", $"{unit.Symbol()} angstrom");
-            Num(w, "chemical_potential", nodes.ChemicalPotential);
+            Num(w, "chemical_potential", digest.Mu);
+            w.WriteString("mu_rule", SolutionDocument.RuleName(solution.MuRule));
+            Num(w, "temperature", solution.Temperature);
             w.WriteNumber("occupied_bands", nodes.OccupiedBands);
             w.WriteString("search_mesh", nodes.Mesh);
             w.WriteStartObject("phase");
-            w.WriteString("label", SpectrumSummary.Name(phase.Phase));
-            w.WriteString("reason", phase.Reason);
+            w.WriteString("label", digest.Phase!.Name);
+            w.WriteString("reason", digest.Phase.Reason);
             w.WriteEndObject();
-            w.WriteNumber("node_count", nodes.Nodes.Count);
-            w.WriteNumber("chirality_sum", nodes.ChiralitySum);
+            w.WriteStartObject("totals");
+            w.WriteNumber("nodes", nodes.Nodes.Count);
+            w.WriteNumber("pinned_at_mu", nodes.Nodes.Count(n => n.Pinning == NodePinning.Pinned));
+            w.WriteBoolean("chiralities_resolved", nodes.ChiralitiesResolved);
+            if (nodes.ChiralitySum is { } sum) w.WriteNumber("chirality_sum", sum); else w.WriteNull("chirality_sum");
             w.WriteBoolean("nodal_line_suspected", nodes.NodalLineSuspected);
-            w.WriteStartArray("nodes");
-            foreach (var n in nodes.Nodes) Node(w, n);
+            w.WriteBoolean("fermi_surface_away_from_nodes", nodes.FermiSurfaceAwayFromNodes);
+            Num(w, "band_overlap", nodes.BandOverlap);
+            Num(w, "node_energy_spread", nodes.NodeEnergySpread);
+            w.WriteEndObject();
+            w.WriteStartObject("judged_by");
+            Num(w, "band_pair_width", nodes.Tolerances.PairWidth);
+            Num(w, "pinning_window", nodes.Tolerances.Pinning);
+            Num(w, "node_gap_target", nodes.Tolerances.NodeGap);
+            Num(w, "gap_threshold", nodes.Tolerances.Gap);
+            Num(w, "merge_distance", nodes.Tolerances.Merge);
+            w.WriteEndObject();
+            w.WriteStartArray("orbits");
+            foreach (var orbit in nodes.Nodes.GroupBy(n => n.Orbit))
+            {
+                var first = orbit.First();
+                w.WriteStartObject();
+                w.WriteNumber("orbit", orbit.Key);
+                w.WriteNumber("members_count", orbit.Count());
+                Num(w, "energy", orbit.Average(n => n.Energy));
+                Num(w, "energy_minus_mu", orbit.Average(n => n.EnergyOffset));
+                w.WriteString("position_against_mu", first.Pinning switch { NodePinning.Pinned => "pinned", NodePinning.Above => "above", _ => "below" });
+                w.WriteString("kind", first.IsDirac ? "dirac" : "weyl");
+                w.WriteStartArray("members");
+                foreach (var n in orbit) Node(w, n);
+                w.WriteEndArray();
+                w.WriteEndObject();
+            }
             w.WriteEndArray();
             w.WriteStartArray("warnings");
             foreach (var s in nodes.Warnings) w.WriteStringValue(s);
@@ -52,19 +88,18 @@ public static class NodeReportJson
             Vector(w, "direct_at_reduced", lattice.Reduced(gaps.DirectAt));
             Num(w, "indirect", gaps.Indirect);
             Num(w, "valence_maximum", gaps.ValenceMaximum);
-            Vector(w, "valence_maximum_at_reduced", lattice.Reduced(gaps.ValenceMaximumAt));
             Num(w, "conduction_minimum", gaps.ConductionMinimum);
-            Vector(w, "conduction_minimum_at_reduced", lattice.Reduced(gaps.ConductionMinimumAt));
             w.WriteString("mesh", gaps.Mesh);
             w.WriteEndObject();
-            w.WriteStartObject("dos_fermi");
-            w.WriteString("unit", $"states per {unit.Symbol()}");
-            Num(w, "total_per_cell", dosFermi.Total);
-            Num(w, "correlated_per_cell", dosFermi.Correlated);
-            Num(w, "conduction_per_cell", dosFermi.Conduction);
-            Num(w, "total_per_formula_unit", dosFermi.Total / formulaUnits);
-            Num(w, "correlated_per_formula_unit", dosFermi.Correlated / formulaUnits);
-            w.WriteEndObject();
+            if (digest.DosAtMu is { } dos)
+            {
+                w.WriteStartObject("dos_at_mu");
+                w.WriteString("unit", $"states per {unit.Symbol()} per cell");
+                Num(w, "total", dos.Total);
+                Num(w, "correlated", dos.Correlated);
+                Num(w, "conduction", dos.Conduction);
+                w.WriteEndObject();
+            }
             w.WriteEndObject();
         }
         return Encoding.UTF8.GetString(ms.ToArray());
@@ -78,10 +113,11 @@ public static class NodeReportJson
         if (n.Location is null) w.WriteNull("location"); else w.WriteString("location", n.Location);
         Num(w, "energy_minus_mu", n.EnergyOffset);
         Num(w, "residual_gap", n.Gap);
-        w.WriteNumber("chirality", n.Chirality);
-        Num(w, "flux_over_2pi", n.FluxOver2Pi);
-        w.WriteString("degeneracy", n.IsDirac ? "dirac" : "weyl");
+        if (n.Chirality is { } c) w.WriteNumber("chirality", c); else w.WriteNull("chirality");
+        if (n.FluxOver2Pi is { } f) Num(w, "berry_flux_over_2pi", f); else w.WriteNull("berry_flux_over_2pi");
+        Num(w, "sphere_radius", n.SphereRadius);
         w.WriteNumber("bands_touching", n.Degeneracy);
+        w.WriteStartObject("cone");
         w.WriteStartArray("velocity_tensor");
         for (int i = 0; i < 3; i++)
         {
@@ -90,13 +126,14 @@ public static class NodeReportJson
             w.WriteEndArray();
         }
         w.WriteEndArray();
-        w.WriteStartArray("velocity_singular_values");
+        w.WriteStartArray("principal_velocities");
         foreach (var s in n.VelocitySingular) NumValue(w, s);
         w.WriteEndArray();
         Num(w, "abs_det_velocity", n.DetVelocity);
         Vector(w, "tilt", n.Tilt);
         Num(w, "tilt_ratio", n.TiltRatio);
         w.WriteString("type", n.Type == NodeType.TypeI ? "I" : "II");
+        w.WriteEndObject();
         w.WriteEndObject();
     }
 

@@ -24,15 +24,10 @@ public sealed record SolutionDocument
     public double? DecoupledFreeEnergy { get; init; }
     public required double ElectronsPerCell { get; init; }
     public required string Branch { get; init; }
-    public string? Phase { get; init; }
-    /// <summary>Why the phase label was given (plain words).</summary>
-    public string? PhaseReason { get; init; }
-    /// <summary>Direct and indirect gap between bands n_occ - 1 and n_occ on the solve mesh (energy unit); null for a partly filled band.</summary>
-    public double? DirectGap { get; init; }
-    public double? IndirectGap { get; init; }
-    /// <summary>DOS at mu, total and on the correlated orbitals (states per cell per energy unit).</summary>
-    public double? DosFermiTotal { get; init; }
-    public double? DosFermiCorrelated { get; init; }
+    /// <summary>How mu was fixed ("fermi-dirac", "node-energy", "middle-of-gap", "ground-state-in-band").</summary>
+    public string? MuRule { get; init; }
+    /// <summary>The spectrum digest's columns (phase label, gaps, DOS at mu, nodes): the record scans write too.</summary>
+    public Analysis.SpectrumColumns? Spectrum { get; init; }
     public required IReadOnlyList<SiteEntry> Sites { get; init; }
     public required IReadOnlyDictionary<string, double> Parameters { get; init; }
     public required SamplingEntry Sampling { get; init; }
@@ -59,19 +54,37 @@ public sealed record SolutionDocument
         NumberHandling = JsonNumberHandling.AllowNamedFloatingPointLiterals,
     };
 
-    public static SolutionDocument From(SaddlePoint sp, BoundModel model, SolverSettings settings, string? phase = null) => new()
+    /// <summary>The document of a freshly solved <paramref name="solution"/>, with its digest's columns when given.</summary>
+    /// <exception cref="ArgumentException">A solution not solved in this process (files and bare models have no saddle point to write).</exception>
+    public static SolutionDocument From(Solutions.Solution solution, Analysis.SpectrumDigest? digest = null)
     {
-        Format = FormatTag, Converged = sp.Converged, Iterations = sp.Iterations, ResidualNorm = sp.ResidualNorm,
-        EnergyUnit = Units.EnergyUnits.Symbol(model.Unit), Temperature = sp.Temperature,
-        TemperatureK = sp.Temperature * Units.EnergyUnits.Kelvins(model.Unit), Mu = sp.Mu, FreeEnergy = sp.FreeEnergy,
-        DecoupledFreeEnergy = sp.DecoupledFreeEnergy, ElectronsPerCell = sp.ElectronsPerCell,
-        Branch = sp.Branch == SaddlePointBranch.Kondo ? "kondo" : "decoupled", Phase = phase,
-        Sites = [.. sp.Groups.Select(g => new SiteEntry(g.Name, g.Shells, g.R, g.Lambda, g.BareLevel, g.RenormalizedLevel, g.FOccupation, g.Z))],
-        Parameters = model.Parameters.ToDictionary(p => p.Key, p => p.Value),
-        Sampling = new(sp.Sampling, model.IsMomentumFree ? null : settings.Mesh, model.IsMomentumFree ? null : settings.Shifted,
-                       sp.Temperature > 0 ? "fermi-dirac" : "step"),
-        ModelPath = string.IsNullOrEmpty(model.SourcePath) ? "" : Path.GetFullPath(model.SourcePath), ModelSha256 = Provenance.Hash(model.SourceText), ToolVersion = Provenance.ToolVersion,
-        Backend = Provenance.Backend, Created = Provenance.NowUtc(), WallSeconds = sp.WallSeconds, Notes = sp.Notes,
+        var sp = solution.SaddlePoint ?? throw new ArgumentException("only a solution solved in this process can be written");
+        var model = solution.Model;
+        return new()
+        {
+            Format = FormatTag, Converged = sp.Converged, Iterations = sp.Iterations, ResidualNorm = sp.ResidualNorm,
+            EnergyUnit = Units.EnergyUnits.Symbol(model.Unit), Temperature = sp.Temperature,
+            TemperatureK = sp.Temperature * Units.EnergyUnits.Kelvins(model.Unit), Mu = solution.Mu, MuRule = RuleName(solution.MuRule),
+            FreeEnergy = sp.FreeEnergy, DecoupledFreeEnergy = sp.DecoupledFreeEnergy, ElectronsPerCell = sp.ElectronsPerCell,
+            Branch = sp.Branch == SaddlePointBranch.Kondo ? "kondo" : "decoupled", Spectrum = digest?.Columns,
+            Sites = [.. sp.Groups.Select(g => new SiteEntry(g.Name, g.Shells, g.R, g.Lambda, g.BareLevel,
+                                                           g.BareLevel + g.Lambda - solution.Mu, g.FOccupation, g.Z))],
+            Parameters = model.Parameters.ToDictionary(p => p.Key, p => p.Value),
+            Sampling = new(sp.Sampling, solution.Mesh is null ? null : solution.Mesh.N1, solution.Mesh?.Shifted,
+                           sp.Temperature > 0 ? "fermi-dirac" : "step"),
+            ModelPath = string.IsNullOrEmpty(model.SourcePath) ? "" : Path.GetFullPath(model.SourcePath), ModelSha256 = Provenance.Hash(model.SourceText), ToolVersion = Provenance.ToolVersion,
+            Backend = Provenance.Backend, Created = Provenance.NowUtc(), WallSeconds = sp.WallSeconds, Notes = sp.Notes,
+        };
+    }
+
+    /// <summary>File form of a chemical-potential rule.</summary>
+    public static string RuleName(Solutions.ChemicalPotentialRule rule) => rule switch
+    {
+        Solutions.ChemicalPotentialRule.FermiDirac => "fermi-dirac",
+        Solutions.ChemicalPotentialRule.NodeEnergy => "node-energy",
+        Solutions.ChemicalPotentialRule.MiddleOfGap => "middle-of-gap",
+        Solutions.ChemicalPotentialRule.GroundStateInBand => "ground-state-in-band",
+        _ => "from-file",
     };
 
     public string ToJson() => JsonSerializer.Serialize(this, Json);

@@ -11,9 +11,8 @@ internal sealed class RowDraft(ScanSchema schema)
     public readonly double[] R = new double[schema.GroupNames.Count];
     public readonly double[] Lambda = new double[schema.GroupNames.Count];
     public readonly double[] Nf = new double[schema.GroupNames.Count];
-    public double? DirectGap, IndirectGap, DosFermiTotal, DosFermiCorrelated, MaxNodeOffset, Gamma, Beta;
-    public int? NodeCount, NetChirality, AbsChirality;
-    public string? Phase;
+    public Analysis.SpectrumColumns Spectrum = new();
+    public string? Error;
     public double[]? SolverState;
 
     public ScanRow Build()
@@ -25,10 +24,7 @@ internal sealed class RowDraft(ScanSchema schema)
         {
             Converged = Converged, Iterations = Iterations, ResidualNorm = ResidualNorm, Mu = Mu, FreeEnergy = FreeEnergy,
             Groups = schema.GroupNames.Select((g, i) => new GroupSolution(g, R[i], Lambda[i], Nf[i])).ToArray(),
-            Parameters = parameters, DirectGap = DirectGap, IndirectGap = IndirectGap, DosFermiTotal = DosFermiTotal,
-            DosFermiCorrelated = DosFermiCorrelated, NodeCount = NodeCount, MaxNodeOffset = MaxNodeOffset,
-            NetChirality = NetChirality, AbsChirality = AbsChirality, GammaMilliJoulePerMolK2 = Gamma,
-            BetaMilliJoulePerMolK4 = Beta, Phase = Phase, SolverState = SolverState,
+            Parameters = parameters, Spectrum = Spectrum, Error = Error, SolverState = SolverState,
         };
         return new ScanRow(PointId, Shard, Axes, parameters, TemperatureK, result, WallSeconds, WarmStarted);
     }

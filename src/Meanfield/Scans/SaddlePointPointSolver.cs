@@ -68,19 +68,18 @@ public sealed class SaddlePointPointSolver
         if (!sp.Converged && sp.Groups.All(g => g.R < CollapsingR) && solver.Decoupled() is { } decoupled)
             sp = decoupled with { Iterations = sp.Iterations }; // heading to r = 0, which always solves the equations
 
-        var spectrum = sp.Converged ? Spectrum(solver, model, sp) : new PointSpectrumColumns();
+        // The same handle and digest `solve` and `nodes` use; the row's mu is the solution's (placed at a node energy at T = 0).
+        var solution = sp.Converged ? Solutions.Solution.FromSaddlePoint(model, sp, settings) : null;
+        var request = new Analysis.SpectrumRequest { Dos = Columns.Dos || Columns.Heat, Heat = Columns.Heat };
+        var spectrum = solution is null ? new Analysis.SpectrumColumns() : Analysis.SpectrumSummary.Compute(solution, request).Columns;
         return new ScanPointResult
         {
-            Converged = sp.Converged, Iterations = sp.Iterations, ResidualNorm = sp.ResidualNorm, Mu = sp.Mu,
+            Converged = sp.Converged, Iterations = sp.Iterations, ResidualNorm = sp.ResidualNorm, Mu = solution?.Mu ?? sp.Mu,
             FreeEnergy = sp.FreeEnergy,
             Groups = sp.Groups.Select(g => new GroupSolution(g.Name, g.R, g.Lambda, g.FOccupation)).ToArray(),
             Parameters = model.Parameters,
-            DirectGap = spectrum.DirectGap, IndirectGap = spectrum.IndirectGap,
-            DosFermiTotal = spectrum.DosFermiTotal, DosFermiCorrelated = spectrum.DosFermiCorrelated,
-            NodeCount = spectrum.NodeCount, MaxNodeOffset = spectrum.MaxNodeOffset,
-            NetChirality = spectrum.NetChirality, AbsChirality = spectrum.AbsChirality,
-            GammaMilliJoulePerMolK2 = spectrum.GammaMilliJoulePerMolK2, BetaMilliJoulePerMolK4 = spectrum.BetaMilliJoulePerMolK4,
-            Phase = spectrum.Phase,
+            Spectrum = spectrum,
+            Error = sp.Converged ? null : string.Join(" ", sp.Notes),
             SolverState = sp.Amplitudes.Pack(),
         };
     }
@@ -94,13 +93,6 @@ public sealed class SaddlePointPointSolver
         if (neighbour?.SolverState is not { } state || state.Length != 2 * groups || !neighbour.Converged) return null;
         for (int g = 0; g < groups; g++) if (!(state[g] > 1e-4) || !double.IsFinite(state[groups + g])) return null;
         return MeanFieldAmplitudes.Unpack(state);
-    }
-
-    private PointSpectrumColumns Spectrum(SaddlePointSolver solver, BoundModel model, SaddlePoint sp)
-    {
-        var ham = new RenormalizedHamiltonian(solver.Bare, sp.Amplitudes);
-        var mesh = new KMesh(model.Lattice, Settings.Mesh, Settings.Shifted);
-        return PointSpectrum.Compute(ham, model, sp.Mu, sp.Branch == SaddlePointBranch.Decoupled, mesh, Columns);
     }
 
     private void Record(SaddlePointSolver solver, SaddlePoint sp)

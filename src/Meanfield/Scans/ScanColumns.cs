@@ -36,17 +36,21 @@ internal static class ScanColumns
             c.Add(new ValueColumn<double>("lambda_" + g, "{E}", r => r.Result.Groups[k].Lambda, (d, v) => d.Lambda[k] = v));
             c.Add(new ValueColumn<double>("n_f_" + g, "electrons per site", r => r.Result.Groups[k].Nf, (d, v) => d.Nf[k] = v));
         }
-        c.Add(new NullableColumn<double>("direct_gap", "{E}", r => r.Result.DirectGap, (d, v) => d.DirectGap = v));
-        c.Add(new NullableColumn<double>("indirect_gap", "{E}", r => r.Result.IndirectGap, (d, v) => d.IndirectGap = v));
-        c.Add(new NullableColumn<double>("dos_fermi_total", "states per {E} per cell", r => r.Result.DosFermiTotal, (d, v) => d.DosFermiTotal = v));
-        c.Add(new NullableColumn<double>("dos_fermi_correlated", "states per {E} per cell", r => r.Result.DosFermiCorrelated, (d, v) => d.DosFermiCorrelated = v));
-        c.Add(new NullableColumn<int>("node_count", "", r => r.Result.NodeCount, (d, v) => d.NodeCount = v));
-        c.Add(new NullableColumn<double>("max_node_offset", "{E}", r => r.Result.MaxNodeOffset, (d, v) => d.MaxNodeOffset = v));
-        c.Add(new NullableColumn<int>("net_chirality", "", r => r.Result.NetChirality, (d, v) => d.NetChirality = v));
-        c.Add(new NullableColumn<int>("abs_chirality", "", r => r.Result.AbsChirality, (d, v) => d.AbsChirality = v));
-        c.Add(new NullableColumn<double>("gamma_mJ_per_mol_K2", "mJ mol^-1 K^-2", r => r.Result.GammaMilliJoulePerMolK2, (d, v) => d.Gamma = v));
-        c.Add(new NullableColumn<double>("beta_mJ_per_mol_K4", "mJ mol^-1 K^-4", r => r.Result.BetaMilliJoulePerMolK4, (d, v) => d.Beta = v));
-        c.Add(new TextColumn("phase", "", r => r.Result.Phase, (d, v) => d.Phase = v));
+        // The digest's columns: read from and written to the one SpectrumColumns record.
+        c.Add(new NullableColumn<double>("direct_gap", "{E}", r => r.Result.Spectrum.DirectGap, (d, v) => d.Spectrum = d.Spectrum with { DirectGap = v }));
+        c.Add(new NullableColumn<double>("indirect_gap", "{E}", r => r.Result.Spectrum.IndirectGap, (d, v) => d.Spectrum = d.Spectrum with { IndirectGap = v }));
+        c.Add(new NullableColumn<double>("dos_fermi_total", "states per {E} per cell", r => r.Result.Spectrum.DosFermiTotal, (d, v) => d.Spectrum = d.Spectrum with { DosFermiTotal = v }));
+        c.Add(new NullableColumn<double>("dos_fermi_correlated", "states per {E} per cell", r => r.Result.Spectrum.DosFermiCorrelated, (d, v) => d.Spectrum = d.Spectrum with { DosFermiCorrelated = v }));
+        c.Add(new NullableColumn<int>("node_count", "", r => r.Result.Spectrum.NodeCount, (d, v) => d.Spectrum = d.Spectrum with { NodeCount = v }));
+        c.Add(new NullableColumn<int>("pinned_nodes", "", r => r.Result.Spectrum.PinnedNodes, (d, v) => d.Spectrum = d.Spectrum with { PinnedNodes = v }));
+        c.Add(new NullableColumn<double>("max_node_offset", "{E}", r => r.Result.Spectrum.MaxNodeOffset, (d, v) => d.Spectrum = d.Spectrum with { MaxNodeOffset = v }));
+        c.Add(new NullableColumn<int>("net_chirality", "", r => r.Result.Spectrum.NetChirality, (d, v) => d.Spectrum = d.Spectrum with { NetChirality = v }));
+        c.Add(new NullableColumn<int>("abs_chirality", "", r => r.Result.Spectrum.AbsChirality, (d, v) => d.Spectrum = d.Spectrum with { AbsChirality = v }));
+        c.Add(new NullableColumn<double>("gamma_mJ_per_mol_K2", "mJ mol^-1 K^-2", r => r.Result.Spectrum.GammaMilliJoulePerMolK2, (d, v) => d.Spectrum = d.Spectrum with { GammaMilliJoulePerMolK2 = v }));
+        c.Add(new NullableColumn<double>("beta_mJ_per_mol_K4", "mJ mol^-1 K^-4", r => r.Result.Spectrum.BetaMilliJoulePerMolK4, (d, v) => d.Spectrum = d.Spectrum with { BetaMilliJoulePerMolK4 = v }));
+        c.Add(new TextColumn("phase", "", r => r.Result.Spectrum.Phase, (d, v) => d.Spectrum = d.Spectrum with { Phase = v }));
+        c.Add(new TextColumn("phase_reason", "", r => r.Result.Spectrum.PhaseReason, (d, v) => d.Spectrum = d.Spectrum with { PhaseReason = v }));
+        c.Add(new TextColumn("error", "", r => r.Result.Error, (d, v) => d.Error = v));
         c.Add(new ValueColumn<double>("wall_seconds", "s", r => r.WallSeconds, (d, v) => d.WallSeconds = v));
         c.Add(new ValueColumn<bool>("warm_started", "", r => r.WarmStarted, (d, v) => d.WarmStarted = v));
         if (s.IncludeSolverState) c.Add(new SolverStateColumn());

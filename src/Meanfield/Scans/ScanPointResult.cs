@@ -18,23 +18,13 @@ public sealed record ScanPointResult
     public IReadOnlyList<GroupSolution> Groups { get; init; } = [];
     /// <summary>Bound parameter values actually used (name to value); the scan falls back to numeric overrides.</summary>
     public IReadOnlyList<KeyValuePair<string, double>> Parameters { get; init; } = [];
-    public double? DirectGap { get; init; }
-    public double? IndirectGap { get; init; }
-    /// <summary>Total DOS at the chemical potential, states per energy unit per cell.</summary>
-    public double? DosFermiTotal { get; init; }
-    /// <summary>Correlated-orbital DOS at the chemical potential, states per energy unit per cell.</summary>
-    public double? DosFermiCorrelated { get; init; }
-    public int? NodeCount { get; init; }
-    /// <summary>Largest |E_node - mu| over the nodes found.</summary>
-    public double? MaxNodeOffset { get; init; }
-    public int? NetChirality { get; init; }
-    public int? AbsChirality { get; init; }
-    /// <summary>Sommerfeld coefficient gamma in mJ mol^-1 K^-2.</summary>
-    public double? GammaMilliJoulePerMolK2 { get; init; }
-    /// <summary>T^3 coefficient beta in mJ mol^-1 K^-4.</summary>
-    public double? BetaMilliJoulePerMolK4 { get; init; }
-    /// <summary>Phase label (decoupled, Kondo insulator, Weyl semimetal, ...); null when not classified.</summary>
-    public string? Phase { get; init; }
+    /// <summary>
+    /// The spectrum digest's columns (phase label, gaps, DOS at mu, nodes, heat coefficients): the same record the
+    /// solution JSON writes (<see cref="Analysis.SpectrumColumns"/>); empty for points that did not converge.
+    /// </summary>
+    public Analysis.SpectrumColumns Spectrum { get; init; } = new();
+    /// <summary>Why the point failed, when the solver threw or did not converge; null otherwise.</summary>
+    public string? Error { get; init; }
     /// <summary>Solver-private state for warm starts (for example r, lambda, mu); kept in chunk files for resume.</summary>
     public double[]? SolverState { get; init; }
 }

@@ -96,7 +96,7 @@ public class ShippedWeylModelTests
         var (code, stdout, err) = CliRun.Run([.. args]);
         Assert.True(code == ExitCodes.Success, err + stdout);
         using var doc = System.Text.Json.JsonDocument.Parse(File.ReadAllText(nodes));
-        Assert.True(doc.RootElement.GetProperty("node_count").GetInt32() >= 2, stdout);
-        Assert.Equal(0, doc.RootElement.GetProperty("chirality_sum").GetInt32());
+        Assert.True(NodeReport.Totals(doc).GetProperty("nodes").GetInt32() >= 2, stdout);
+        Assert.Equal(0, NodeReport.Totals(doc).GetProperty("chirality_sum").GetInt32());
     }
 }

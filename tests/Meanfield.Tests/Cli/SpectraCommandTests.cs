@@ -69,12 +69,11 @@ public sealed class SpectraCommandTests
         var json = cli.PathOf("nodes.json");
         Assert.Equal(ExitCodes.Success, cli.Run("nodes", model, "--search-mesh", "8", "--out", json));
         using var doc = JsonDocument.Parse(File.ReadAllText(json));
-        var nodes = doc.RootElement.GetProperty("nodes").EnumerateArray().ToList();
+        var nodes = NodeReport.Members(doc);
         Assert.Equal(3, nodes.Count);
         foreach (var n in nodes)
         {
             Assert.Equal("X", n.GetProperty("location").GetString());
-            Assert.Equal("dirac", n.GetProperty("degeneracy").GetString());
             Assert.Equal(4, n.GetProperty("bands_touching").GetInt32());
         }
         Assert.Equal("dirac-semimetal", doc.RootElement.GetProperty("phase").GetProperty("label").GetString());
@@ -91,17 +90,17 @@ public sealed class SpectraCommandTests
         var json = cli.PathOf("nodes.json");
         Assert.Equal(ExitCodes.Success, cli.Run("nodes", model, "--set", "dt=0.3", "--set", "m=0.85", "--search-mesh", "10", "--out", json));
         using var doc = JsonDocument.Parse(File.ReadAllText(json));
-        var nodes = doc.RootElement.GetProperty("nodes").EnumerateArray().ToList();
+        var nodes = NodeReport.Members(doc);
         Assert.NotEmpty(nodes);
         Assert.Equal(0, nodes.Count % 2);
+        Assert.All(doc.RootElement.GetProperty("orbits").EnumerateArray(), o => Assert.Equal("weyl", o.GetProperty("kind").GetString()));
         foreach (var n in nodes)
         {
-            Assert.Equal("weyl", n.GetProperty("degeneracy").GetString());
             Assert.Equal(1, Math.Abs(n.GetProperty("chirality").GetInt32()));
-            Assert.Equal(n.GetProperty("chirality").GetInt32(), n.GetProperty("flux_over_2pi").GetDouble(), 1);
+            Assert.Equal(n.GetProperty("chirality").GetInt32(), n.GetProperty("berry_flux_over_2pi").GetDouble(), 1);
         }
         Assert.Equal(0, nodes.Sum(n => n.GetProperty("chirality").GetInt32()));
-        Assert.Equal(0, doc.RootElement.GetProperty("chirality_sum").GetInt32());
+        Assert.Equal(0, NodeReport.Totals(doc).GetProperty("chirality_sum").GetInt32());
         Assert.Equal("weyl-semimetal", doc.RootElement.GetProperty("phase").GetProperty("label").GetString());
         Assert.Contains("Weyl", cli.Out);
     }
@@ -115,9 +114,9 @@ public sealed class SpectraCommandTests
         var json = cli.PathOf("nodes.json");
         Assert.Equal(ExitCodes.Success, cli.Run("nodes", model, "--set", "dt=0.3", "--set", "m=1.5", "--search-mesh", "8", "--out", json));
         using var doc = JsonDocument.Parse(File.ReadAllText(json));
-        Assert.Equal(0, doc.RootElement.GetProperty("node_count").GetInt32());
+        Assert.Equal(0, NodeReport.Totals(doc).GetProperty("nodes").GetInt32());
         Assert.True(doc.RootElement.GetProperty("gaps").GetProperty("indirect").GetDouble() > 0.1);
-        Assert.Equal(0.0, doc.RootElement.GetProperty("dos_fermi").GetProperty("total_per_cell").GetDouble(), 12);
+        Assert.Equal(0.0, doc.RootElement.GetProperty("dos_at_mu").GetProperty("total").GetDouble(), 12);
     }
 
     [Theory]
@@ -135,7 +134,7 @@ public sealed class SpectraCommandTests
         Assert.Equal(ExitCodes.Success, cli.Run("nodes", model, "--set", Jitter("dt", 0.3), "--set", Jitter("m", 0.85),
             "--set", Jitter("lso", 0.125), "--set", Jitter("t", 1), "--search-mesh", "10", "--out", json));
         using var doc = JsonDocument.Parse(File.ReadAllText(json));
-        var chir = doc.RootElement.GetProperty("nodes").EnumerateArray().Select(n => n.GetProperty("chirality").GetInt32()).ToList();
+        var chir = NodeReport.Members(doc).Select(n => n.GetProperty("chirality").GetInt32()).ToList();
         Assert.NotEmpty(chir);
         Assert.All(chir, c => Assert.NotEqual(0, c));
         Assert.Equal(0, chir.Sum());
@@ -147,7 +146,7 @@ public sealed class SpectraCommandTests
         using var cli = new CliHarness();
         var json = cli.PathOf("nodes.json");
         Assert.Equal(ExitCodes.NoAnswer, cli.Run("nodes", CliHarness.ShippedModel("heavy-metal-cubic.toml"), "--mesh", "8", "--out", json));
-        Assert.Contains("metal", cli.Err);
+        Assert.Contains("fill a band partly", cli.Err);
         Assert.Empty(cli.Files());
     }
 
@@ -187,7 +186,7 @@ public sealed class SpectraCommandTests
         var json = cli.PathOf("solution.json");
         Assert.Equal(ExitCodes.Success, cli.Run("solve", CliHarness.ShippedModel("kondo-insulator-sc.toml"), "--mesh", "10", "--out", json));
         using var doc = JsonDocument.Parse(File.ReadAllText(json));
-        var root = doc.RootElement;
+        var root = doc.RootElement.GetProperty("spectrum");
         // Two electrons fill the lower hybridized band of the periodic Anderson lattice: a Kondo insulator
         // (Hewson, The Kondo Problem to Heavy Fermions, 1993, ch. 7 (from memory)).
         Assert.Equal("kondo-insulator", root.GetProperty("phase").GetString());
@@ -203,7 +202,7 @@ public sealed class SpectraCommandTests
         var nodes = cli.PathOf("nodes.json");
         Assert.Equal(ExitCodes.Success, cli.Run("nodes", json, "--search-mesh", "8", "--out", nodes));
         using var n = JsonDocument.Parse(File.ReadAllText(nodes));
-        Assert.Equal(0, n.RootElement.GetProperty("node_count").GetInt32());
+        Assert.Equal(0, n.RootElement.GetProperty("totals").GetProperty("nodes").GetInt32());
         Assert.Equal("kondo-insulator", n.RootElement.GetProperty("phase").GetProperty("label").GetString());
     }
 
@@ -214,8 +213,9 @@ public sealed class SpectraCommandTests
         var json = cli.PathOf("solution.json");
         Assert.Equal(ExitCodes.Success, cli.Run("solve", CliHarness.ShippedModel("heavy-metal-cubic.toml"), "--mesh", "10", "--out", json));
         using var doc = JsonDocument.Parse(File.ReadAllText(json));
-        Assert.Equal("heavy-metal", doc.RootElement.GetProperty("phase").GetString());
-        Assert.True(doc.RootElement.GetProperty("dos_fermi_total").GetDouble() > 0);
-        Assert.False(doc.RootElement.TryGetProperty("indirect_gap", out _));
+        var spectrum = doc.RootElement.GetProperty("spectrum");
+        Assert.Equal("heavy-metal", spectrum.GetProperty("phase").GetString());
+        Assert.True(spectrum.GetProperty("dos_fermi_total").GetDouble() > 0);
+        Assert.False(spectrum.TryGetProperty("indirect_gap", out _));
     }
 }

@@ -31,9 +31,12 @@ internal sealed class FakeSolver
             FreeEnergy = -v * ratio,
             Groups = [new GroupSolution("f", R(v, ratio), 0.5 * v, 1 - R(v, ratio) * R(v, ratio))],
             Parameters = [new("V", v), new("lso", 20), new("m", ratio * 20)],
-            DirectGap = ratio > 0.3 ? null : 2 * R(v, ratio),
-            NodeCount = ratio > 0.3 ? 4 : 0,
-            Phase = ratio > 0.3 ? "weyl-semimetal" : "kondo-insulator",
+            Spectrum = new()
+            {
+                DirectGap = ratio > 0.3 ? null : 2 * R(v, ratio),
+                NodeCount = ratio > 0.3 ? 4 : 0,
+                Phase = ratio > 0.3 ? "weyl-semimetal" : "kondo-insulator",
+            },
             SolverState = [R(v, ratio), 0.5 * v, Mu(v, ratio)],
         };
     }

@@ -4,7 +4,7 @@ using Meanfield.Lattices;
 namespace Meanfield.Analysis.Curvature;
 
 /// <summary>A node lying in a curvature plane, at plane coordinates (s, t) in [0, 1]^2 (k = origin + s span1 + t span2).</summary>
-public readonly record struct PlaneNode(double S, double T, int Chirality, WeylNode Node);
+public readonly record struct PlaneNode(double S, double T, int? Chirality, WeylNode Node);
 
 /// <summary>Finds which nodes lie in a plane of the zone, modulo reciprocal lattice vectors.</summary>
 public static class PlaneNodes

@@ -5,12 +5,28 @@ using Meanfield.Lattices;
 namespace Meanfield.Analysis.Nodes;
 
 /// <summary>
-/// Finds every touching of bands n_occ - 1 and n_occ (0-based): the gap on a Gamma-centred coarse mesh, its local
-/// minima, Nelder-Mead refinement of each to a gap below GapTolerance x bandwidth, deduplication modulo reciprocal
-/// lattice vectors, then per node the chirality (link variables on a sphere), the cone fit, degeneracy and location.
+/// Finds every touching of bands n_occ - 1 and n_occ (0-based), counted from the electron number whatever mu does:
+/// the gap on a Gamma-centred coarse mesh, its local minima, Gauss-Newton refinement of each (<see cref="NodeRefiner"/>)
+/// to a gap below <see cref="SpectrumTolerances.NodeGap"/>, merging by Cartesian distance modulo reciprocal vectors,
+/// completion of every node's orbit under the lattice's point operations (an image is kept only where the bands
+/// really touch), then per node the cone fit, the degeneracy, the chirality from a converged flux and the location.
+/// Every tolerance is relative to the width of the two bands and to |b|_min (<see cref="SpectrumTolerances"/>).
 /// </summary>
 public static class NodeSearch
 {
+    /// <summary>Finite-difference step of the cone fit as a fraction of |b|_min.</summary>
+    public const double ConeStepFraction = 1e-5;
+    /// <summary>A cone whose smallest velocity is below this fraction of its largest has a flat direction (a line).</summary>
+    public const double FlatConeFraction = 1e-3;
+    /// <summary>Coarse minima whose Gauss-Newton start fails get a Nelder-Mead pre-search down to this fraction of the pair width.</summary>
+    public const double PreSearchFraction = 1e-4;
+
+    /// <summary>
+    /// The touchings of bands <paramref name="occupied"/> - 1 and <paramref name="occupied"/> of
+    /// <paramref name="source"/>, with offsets from <paramref name="chemicalPotential"/> (energy unit).
+    /// </summary>
+    /// <exception cref="ArgumentException">A lattice without momentum.</exception>
+    /// <exception cref="ArgumentOutOfRangeException"><paramref name="occupied"/> outside 1..Size-1.</exception>
     public static NodeSearchResult Find(IBlochSource source, int occupied, double chemicalPotential, NodeSearchOptions? options = null)
     {
         var opt = options ?? new NodeSearchOptions();
@@ -19,22 +35,34 @@ public static class NodeSearch
         if (dim < 2) throw new ArgumentException("Node search needs a lattice with momentum.");
         if (occupied < 1 || occupied >= source.Size)
             throw new ArgumentOutOfRangeException(nameof(occupied), $"occupied band count {occupied} must lie in 1..{source.Size - 1}");
+        if (opt.Mesh < 4) throw new ArgumentOutOfRangeException(nameof(options), $"the coarse mesh needs at least 4 divisions, got {opt.Mesh}");
         var mesh = new KMesh(lattice, opt.Mesh);
         var sp = MeshSpectrum.Compute(source, mesh, withProjections: false);
-        var (lo, hi) = sp.Range();
-        double width = Math.Max(hi - lo, 1e-300), target = opt.GapTolerance * width;
 
-        double valMax = double.NegativeInfinity, condMin = double.PositiveInfinity;
+        double valMax = double.NegativeInfinity, condMin = double.PositiveInfinity, pairLow = double.PositiveInfinity,
+               pairHigh = double.NegativeInfinity, largest = 0;
         var gap = new double[mesh.Count];
         for (int k = 0; k < mesh.Count; k++)
         {
             double v = sp.Energy(k, occupied - 1), c = sp.Energy(k, occupied);
-            gap[k] = c - v; valMax = Math.Max(valMax, v); condMin = Math.Min(condMin, c);
+            gap[k] = c - v;
+            valMax = Math.Max(valMax, v); condMin = Math.Min(condMin, c);
+            pairLow = Math.Min(pairLow, v); pairHigh = Math.Max(pairHigh, c);
+            largest = Math.Max(largest, Math.Max(Math.Abs(sp.Energy(k, 0)), Math.Abs(sp.Energy(k, source.Size - 1))));
         }
-        double metalTol = 1e-6 * width, overlap = valMax - condMin;
-        bool metal = overlap > metalTol || valMax > chemicalPotential + metalTol || condMin < chemicalPotential - metalTol;
+        var tol = SpectrumTolerances.For(pairLow, pairHigh, largest, source.Size, lattice, opt.Temperature);
 
         var warnings = new List<string>();
+        // A band pair degenerate across the zone (a Kramers pair of an inversion- and time-reversal-symmetric spectrum
+        // cut by the electron count) touches everywhere: a partly filled band, not nodes.
+        int degenerate = 0;
+        foreach (var g in gap) if (g < tol.Degeneracy) degenerate++;
+        if (degenerate > mesh.Count / 2)
+        {
+            warnings.Add($"bands {occupied - 1} and {occupied} are degenerate across the zone: the electron count fills a degenerate pair partly (a Fermi surface).");
+            return new NodeSearchResult([], null, valMax - condMin, 0, true, false, 0, warnings, occupied, chemicalPotential,
+                                        mesh.ToString(), tol, dim);
+        }
         var candidates = LocalMinima(mesh, gap, dim);
         if (candidates.Count > opt.MaxCandidates)
         {
@@ -42,35 +70,92 @@ public static class NodeSearch
             candidates = candidates.GetRange(0, opt.MaxCandidates);
         }
 
-        var refined = new (double[] U, double Gap)[candidates.Count];
-        Parallel.For(0, candidates.Count, () => new BlochWorkspace(source), (c, _, ws) =>
+        var refined = new RefinedPoint[candidates.Count];
+        Parallel.For(0, candidates.Count, () => new NodeRefiner(source, tol.ReciprocalLength), (c, _, refiner) =>
         {
-            var u0 = mesh.Reduced(candidates[c]);
-            double F(double[] u) => ws.Gap(lattice.Cartesian(u[0], u[1], dim == 3 ? u[2] : 0), occupied - 1);
-            double[] x0 = dim == 3 ? [u0.X, u0.Y, u0.Z] : [u0.X, u0.Y];
-            var best = NelderMead.Minimise(F, x0, 0.5 / opt.Mesh, target, 1e-14, 3000);
-            if (best.F >= target) best = NelderMead.Minimise(F, best.X, 1e-3 / opt.Mesh, target, 1e-15, 3000);
-            refined[c] = (best.X, best.F);
-            return ws;
+            refined[c] = RefineFrom(refiner, lattice, mesh.Cartesian(candidates[c]), occupied - 1, tol, opt.Mesh);
+            return refiner;
         }, _ => { });
 
-        var distinct = Deduplicate(refined, target, dim);
-        var nodes = Characterise(source, distinct, occupied, chemicalPotential, width, opt);
-        int sum = nodes.Sum(n => n.Chirality);
+        var found = new List<Vec3>();
+        int unresolved = 0;
+        foreach (var p in refined.OrderBy(p => p.Gap))
+        {
+            if (p.Converged) AddDistinct(found, lattice, p.K, tol.Merge);
+            else if (p.Gap < tol.Gap) unresolved++;
+        }
+        if (opt.CompleteOrbits) CompleteOrbits(source, lattice, found, occupied - 1, tol, 4 * opt.NodalLineCount);
+
+        var nodes = Characterise(source, found, occupied, chemicalPotential, tol);
+        bool resolved = dim != 3 || nodes.All(n => n.Chirality is not null);
+        int? sum = dim == 3 && resolved ? nodes.Sum(n => n.Chirality!.Value) : null;
+
+        double spread = 0;
+        if (nodes.Count > 0)
+        {
+            double lo = nodes.Min(n => n.Energy), hi = nodes.Max(n => n.Energy);
+            spread = hi - lo;
+            valMax = Math.Max(valMax, hi); condMin = Math.Min(condMin, lo);
+        }
+        double overlap = valMax - condMin;
+        bool fermiSurface = overlap > spread + tol.Overlap;
 
         double spacing = Math.Max(lattice.B1.Norm, Math.Max(lattice.B2.Norm, dim == 3 ? lattice.B3.Norm : 0)) / opt.Mesh;
         double closest = ClosestPair(lattice, nodes);
-        if (closest < 2 * spacing)
-            warnings.Add($"mesh too coarse to resolve nodes closer than {2 * spacing:G3} 1/angstrom (closest pair {closest:G3}); try --mesh {2 * opt.Mesh}.");
-        if (dim == 3 && sum != 0)
-            warnings.Add($"chiralities sum to {sum}, not zero: some nodes were missed or merged; try --mesh {2 * opt.Mesh}.");
+        if (closest < spacing)
+            warnings.Add($"nodes closer than one coarse-mesh spacing ({closest:G3} against {spacing:G3} 1/angstrom): a pair may have been missed; try a search mesh of {2 * opt.Mesh}.");
+        int undetermined = nodes.Count(n => dim == 3 && n.Chirality is null);
+        if (undetermined > 0)
+            warnings.Add($"the chirality of {undetermined} node(s) is undetermined: no sphere gave an integer Berry flux; try a finer search mesh.");
+        if (sum is { } s && s != 0)
+            warnings.Add($"chiralities sum to {s}, not zero: some nodes were missed; try a search mesh of {2 * opt.Mesh}.");
+        if (unresolved > 0)
+            warnings.Add($"{unresolved} coarse gap minima fell below {tol.Gap:G3} but did not refine to a touching; try a finer search mesh.");
         bool line = nodes.Count > opt.NodalLineCount
-                    || nodes.Any(n => n.VelocitySingular[^1] < 1e-3 * n.VelocitySingular[0]);
+                    || nodes.Any(n => n.VelocitySingular[dim - 1] < FlatConeFraction * n.VelocitySingular[0]);
         if (line) warnings.Add("touching points form a line (nodal line) or a cone has a flat direction.");
-        if (metal)
-            warnings.Add($"metal: bands {occupied - 1} and {occupied} are not separated at the chemical potential "
-                         + $"(overlap {overlap:G4}, highest occupied-band energy {valMax:G6}, lowest empty-band energy {condMin:G6}).");
-        return new NodeSearchResult(nodes, sum, metal, overlap, line, warnings, occupied, chemicalPotential, mesh.ToString());
+        if (fermiSurface)
+            warnings.Add($"bands {occupied - 1} and {occupied} overlap by {overlap:G4} beyond the spread {spread:G4} of the node energies: a Fermi surface away from the nodes.");
+        return new NodeSearchResult(nodes, sum, overlap, spread, fermiSurface, line, unresolved, warnings, occupied,
+                                    chemicalPotential, mesh.ToString(), tol, dim);
+    }
+
+    // Gauss-Newton from a coarse minimum; when it cannot start, a Nelder-Mead pre-search brings it closer first.
+    private static RefinedPoint RefineFrom(NodeRefiner refiner, Lattice lattice, Vec3 k0, int lower, SpectrumTolerances tol, int mesh)
+    {
+        var p = refiner.Refine(k0, lower, tol.NodeGap, tol.Degeneracy);
+        if (p.Converged) return p;
+        int dim = lattice.Dimension;
+        var u0 = lattice.Reduced(p.K);
+        double F(double[] u) => refiner.Gap(lattice.Cartesian(u[0], u[1], dim == 3 ? u[2] : 0), lower);
+        double[] x0 = dim == 3 ? [u0.X, u0.Y, u0.Z] : [u0.X, u0.Y];
+        var best = NelderMead.Minimise(F, x0, 0.5 / mesh, PreSearchFraction * tol.PairWidth, 0, 2000);
+        var k1 = lattice.Cartesian(best.X[0], best.X[1], dim == 3 ? best.X[2] : 0);
+        var q = refiner.Refine(k1, lower, tol.NodeGap, tol.Degeneracy);
+        return q.Gap < p.Gap ? q : p;
+    }
+
+    private static bool AddDistinct(List<Vec3> found, Lattice lattice, Vec3 k, double merge)
+    {
+        foreach (var f in found) if (PeriodicDistance(lattice, f, k) < merge) return false;
+        found.Add(k);
+        return true;
+    }
+
+    // Images of every node under the lattice's point operations, refined and kept where the bands touch there.
+    private static void CompleteOrbits(IBlochSource source, Lattice lattice, List<Vec3> found, int lower, SpectrumTolerances tol, int cap)
+    {
+        var ops = LatticeRotations.Of(lattice);
+        var refiner = new NodeRefiner(source, tol.ReciprocalLength);
+        for (int i = 0; i < found.Count && found.Count < cap; i++)
+            foreach (var op in ops)
+            {
+                var image = LatticeRotations.Apply(op, found[i]);
+                if (found.Any(f => PeriodicDistance(lattice, f, image) < tol.Merge)) continue;
+                var p = refiner.Refine(image, lower, tol.NodeGap, tol.Degeneracy);
+                if (p.Converged) AddDistinct(found, lattice, p.K, tol.Merge);
+                if (found.Count >= cap) break;
+            }
     }
 
     private static List<int> LocalMinima(KMesh mesh, double[] gap, int dim)
@@ -93,58 +178,73 @@ public static class NodeSearch
         return list;
     }
 
-    private static List<double[]> Deduplicate((double[] U, double Gap)[] refined, double target, int dim)
-    {
-        var kept = new List<double[]>();
-        foreach (var (u, g) in refined.Where(r => r.Gap < target).OrderBy(r => r.Gap))
-        {
-            // Fold into [0, 1), snapping values within rounding of 1 back to 0.
-            var folded = u.Select(x => { double f = x - Math.Floor(x); return f > 1 - 1e-9 ? 0 : f; }).ToArray();
-            bool seen = kept.Any(p => Enumerable.Range(0, dim).All(i =>
-            {
-                double d = Math.Abs(p[i] - folded[i]);
-                return Math.Min(d, 1 - d) < 1e-6;
-            }));
-            if (!seen) kept.Add(folded);
-        }
-        return kept;
-    }
-
-    private static List<WeylNode> Characterise(IBlochSource source, List<double[]> positions, int occupied, double mu,
-                                               double width, NodeSearchOptions opt)
+    private static List<WeylNode> Characterise(IBlochSource source, List<Vec3> found, int occupied, double mu, SpectrumTolerances tol)
     {
         var lattice = source.Model.Lattice;
         int dim = lattice.Dimension;
-        var ks = positions.Select(u => NearestImage(lattice, lattice.Cartesian(u[0], u[1], dim == 3 ? u[2] : 0))).ToList();
-        double bMin = Math.Min(lattice.B1.Norm, Math.Min(lattice.B2.Norm, dim == 3 ? lattice.B3.Norm : double.PositiveInfinity));
-        var ws = new BlochWorkspace(source);
-        var nodes = new List<WeylNode>();
-        for (int i = 0; i < ks.Count; i++)
+        var ks = found.Select(k => NearestImage(lattice, k)).ToList();
+        var orbit = Orbits(lattice, source, ks, occupied - 1, tol);
+        var nodes = new WeylNode[ks.Count];
+        Parallel.For(0, ks.Count, i =>
         {
+            var ws = new BlochWorkspace(source);
             var k = ks[i];
             ws.Solve(k, false);
             double ev = ws.Values[occupied - 1], ec = ws.Values[occupied], mid = 0.5 * (ev + ec);
+            double window = Math.Max(tol.Degeneracy, 10 * (ec - ev));
             int deg = 0;
-            for (int n = 0; n < ws.Size; n++) if (Math.Abs(ws.Values[n] - mid) < opt.DegeneracyTolerance * width) deg++;
-            var cone = ConeFit.Compute(ws, k, occupied - 1, 1e-5 * bMin, dim);
-            int chirality = 0; double flux = double.NaN;
+            for (int n = 0; n < ws.Size; n++) if (Math.Abs(ws.Values[n] - mid) < window) deg++;
+            var cone = ConeFit.Compute(ws, k, occupied - 1, ConeStepFraction * tol.ReciprocalLength, dim);
+            ChiralityResult chir = default;
             if (dim == 3)
             {
                 double nearest = double.PositiveInfinity;
                 for (int j = 0; j < ks.Count; j++) if (j != i) nearest = Math.Min(nearest, PeriodicDistance(lattice, k, ks[j]));
-                double radius = Math.Min(0.02 * bMin, 0.3 * nearest);
-                for (int attempt = 0; attempt < 4; attempt++, radius /= 4)
-                {
-                    var s = SphereChirality.Compute(source, k, radius, occupied, opt.SphereTheta, opt.SpherePhi);
-                    if (s.MinimumGap > 1e-6 * width) { flux = s.FluxOver2Pi; chirality = s.Chirality; break; }
-                }
+                chir = SphereChirality.Resolve(source, k, nearest, cone, occupied, tol);
             }
-            var u = positions[i];
-            nodes.Add(new WeylNode(k, new Vec3(u[0], u[1], dim == 3 ? u[2] : 0), mid - mu, ec - ev, chirality, flux,
+            double offset = mid - mu;
+            var pin = Math.Abs(offset) <= tol.Pinning ? NodePinning.Pinned : offset > 0 ? NodePinning.Above : NodePinning.Below;
+            var r = lattice.Reduced(k);
+            nodes[i] = new WeylNode(k, new Vec3(Fold(r.X), Fold(r.Y), dim == 3 ? Fold(r.Z) : 0), mid, offset, pin, ec - ev,
+                chir.Chirality, dim == 3 ? chir.FluxOver2Pi : null, chir.Radius,
                 cone.Velocity, cone.Singular, cone.DetVelocity, cone.Tilt, cone.TiltRatio, deg,
-                HighSymmetryLocator.Locate(lattice, k, 1e-5)));
+                HighSymmetryLocator.Locate(lattice, k, 1e3 * SpectrumTolerances.MergeFraction), orbit[i]);
+        });
+        return nodes.OrderBy(n => n.Orbit).ThenBy(n => n.Reduced.X).ThenBy(n => n.Reduced.Y).ThenBy(n => n.Reduced.Z).ToList();
+    }
+
+    // Orbit labels: nodes that a lattice operation maps onto each other at the same energy share one (union-find).
+    private static int[] Orbits(Lattice lattice, IBlochSource source, List<Vec3> ks, int lower, SpectrumTolerances tol)
+    {
+        var ops = LatticeRotations.Of(lattice);
+        var refiner = new NodeRefiner(source, tol.ReciprocalLength);
+        var energy = ks.Select(k => { refiner.Gap(k, lower); return 0.5 * (refiner.Values[lower] + refiner.Values[lower + 1]); }).ToArray();
+        var parent = Enumerable.Range(0, ks.Count).ToArray();
+        int Root(int i) { while (parent[i] != i) i = parent[i] = parent[parent[i]]; return i; }
+        for (int i = 0; i < ks.Count; i++)
+            foreach (var op in ops)
+            {
+                var image = LatticeRotations.Apply(op, ks[i]);
+                for (int j = 0; j < ks.Count; j++)
+                    if (j != i && Math.Abs(energy[i] - energy[j]) < tol.Degeneracy && PeriodicDistance(lattice, image, ks[j]) < tol.Merge)
+                        parent[Root(j)] = Root(i);
+            }
+        var label = new Dictionary<int, int>();
+        var result = new int[ks.Count];
+        // Number orbits by ascending energy, so the report lists the lowest first.
+        foreach (int i in Enumerable.Range(0, ks.Count).OrderBy(i => energy[Root(i)]))
+        {
+            int root = Root(i);
+            if (!label.TryGetValue(root, out int id)) label[root] = id = label.Count;
+            result[i] = id;
         }
-        return nodes;
+        return result;
+    }
+
+    private static double Fold(double x)
+    {
+        double f = x - Math.Floor(x);
+        return f >= 1 - SpectrumTolerances.MergeFraction ? 0 : f;
     }
 
     // The image k + G closest to Gamma, so that reported Cartesian positions read naturally.
@@ -152,29 +252,33 @@ public static class NodeSearch
     {
         var best = k;
         int r3 = lattice.Dimension == 3 ? 1 : 0;
-        for (int a = -1; a <= 1; a++)
-            for (int b = -1; b <= 1; b++)
-                for (int c = -r3; c <= r3; c++)
-                {
-                    var q = k + lattice.Cartesian(a, b, c);
-                    if (q.Norm < best.Norm - 1e-12) best = q;
-                }
+        for (int pass = 0; pass < 3; pass++)
+            for (int a = -1; a <= 1; a++)
+                for (int b = -1; b <= 1; b++)
+                    for (int c = -r3; c <= r3; c++)
+                    {
+                        var q = best + lattice.Cartesian(a, b, c);
+                        if (q.Norm < best.Norm * (1 - 1e-12)) best = q;
+                    }
         return best;
     }
 
     /// <summary>Shortest distance between k1 and the images k2 + G (inverse angstrom).</summary>
     public static double PeriodicDistance(Lattice lattice, Vec3 k1, Vec3 k2)
     {
+        // Reduce the difference to the cell around the origin first, then look at the neighbouring images.
+        var d = lattice.Reduced(k1 - k2);
+        var centred = lattice.Cartesian(d.X - Math.Round(d.X), d.Y - Math.Round(d.Y), lattice.Dimension == 3 ? d.Z - Math.Round(d.Z) : 0);
         double best = double.PositiveInfinity;
         int r3 = lattice.Dimension == 3 ? 1 : 0;
         for (int a = -1; a <= 1; a++)
             for (int b = -1; b <= 1; b++)
                 for (int c = -r3; c <= r3; c++)
-                    best = Math.Min(best, (k1 - k2 - lattice.Cartesian(a, b, c)).Norm);
+                    best = Math.Min(best, (centred - lattice.Cartesian(a, b, c)).Norm);
         return best;
     }
 
-    private static double ClosestPair(Lattice lattice, List<WeylNode> nodes)
+    private static double ClosestPair(Lattice lattice, IReadOnlyList<WeylNode> nodes)
     {
         double best = double.PositiveInfinity;
         for (int i = 0; i < nodes.Count; i++)

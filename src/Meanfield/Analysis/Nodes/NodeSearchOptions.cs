@@ -1,19 +1,18 @@
 namespace Meanfield.Analysis.Nodes;
 
-/// <summary>Knobs of the node search. Relative tolerances are fractions of the total bandwidth.</summary>
+/// <summary>Knobs of the node search. Energy and distance tolerances live in <see cref="SpectrumTolerances"/>.</summary>
 public sealed record NodeSearchOptions
 {
-    /// <summary>Coarse mesh divisions per reciprocal vector.</summary>
-    public int Mesh { get; init; } = 16;
-    /// <summary>A refined minimum is a node when its gap is below this fraction of the bandwidth.</summary>
-    public double GapTolerance { get; init; } = 1e-8;
-    /// <summary>Most coarse local minima refined (lowest gaps first).</summary>
+    /// <summary>The default coarse mesh: divisions per reciprocal vector of the gap scan that seeds the refinement.</summary>
+    public const int DefaultMesh = 16;
+    /// <summary>Coarse mesh divisions per reciprocal vector (default 16; 4 or more).</summary>
+    public int Mesh { get; init; } = DefaultMesh;
+    /// <summary>k_B T in the energy unit (default 0): a node within it of mu counts as pinned.</summary>
+    public double Temperature { get; init; }
+    /// <summary>Most coarse local minima refined, lowest gaps first (default 96).</summary>
     public int MaxCandidates { get; init; } = 96;
-    /// <summary>Bands within this fraction of the bandwidth of the node energy count in its degeneracy.</summary>
-    public double DegeneracyTolerance { get; init; } = 1e-5;
-    /// <summary>Theta and phi divisions of the chirality sphere.</summary>
-    public int SphereTheta { get; init; } = 24;
-    public int SpherePhi { get; init; } = 48;
-    /// <summary>More distinct nodes than this suggests a nodal line.</summary>
+    /// <summary>More distinct nodes than this suggests a nodal line (default 48).</summary>
     public int NodalLineCount { get; init; } = 48;
+    /// <summary>Complete every node's orbit under the lattice's point operations (default true).</summary>
+    public bool CompleteOrbits { get; init; } = true;
 }

@@ -14,7 +14,7 @@ public class WeylNodeTests
     {
         var r = NodeSearch.Find(AnalysisModels.LatticeWeyl(T, K0A, A), occupied: 1, chemicalPotential: 0);
         Assert.Equal(2, r.Nodes.Count);
-        Assert.False(r.IsMetal);
+        Assert.False(r.FermiSurfaceAwayFromNodes);
         // Nielsen & Ninomiya, Nucl. Phys. B 185, 20 (1981): chiralities over the zone sum to zero.
         Assert.Equal(0, r.ChiralitySum);
         foreach (var n in r.Nodes)
@@ -22,7 +22,7 @@ public class WeylNodeTests
             Assert.Equal(0, n.Cartesian.X, 6);
             Assert.Equal(0, n.Cartesian.Y, 6);
             Assert.Equal(K0A / A, Math.Abs(n.Cartesian.Z), 6);
-            Assert.Equal(1.0, Math.Abs(n.FluxOver2Pi), 6);
+            Assert.Equal(1.0, Math.Abs(n.FluxOver2Pi!.Value), 6);
             // Chirality = sign det v for H = sum q_i v_ij sigma_j (Armitage, Mele & Vishwanath, RMP 90, 015001 (2018));
             // here v = diag(t a, t a, -t a sin(k0 a) sign(kz)).
             Assert.Equal(-Math.Sign(n.Cartesian.Z), n.Chirality);

@@ -1,0 +1,148 @@
+using System.Globalization;
+using Meanfield.Analysis.Nodes;
+using Meanfield.Binding;
+using Meanfield.Bloch;
+using Meanfield.Lattices;
+using Meanfield.Models;
+using Meanfield.Output;
+using Meanfield.Renormalization;
+using Meanfield.Solver;
+
+namespace Meanfield.Solutions;
+
+/// <summary>Where a <see cref="Solution"/> came from.</summary>
+public enum SolutionOrigin
+{
+    /// <summary>Solved in this process.</summary>
+    Solved,
+    /// <summary>Read from a solution file written by `solve`.</summary>
+    File,
+    /// <summary>The bare model: f levels and hybridization unrenormalized, no saddle point.</summary>
+    BareModel,
+}
+
+/// <summary>
+/// The one handle every analysis works on: the bound model, its (renormalized or bare) Bloch Hamiltonian, the saddle
+/// point's amplitudes, the sampling mesh, the temperature and the chemical potential, and where it came from. Built
+/// once by <see cref="FromSaddlePoint"/>, <see cref="Load"/> or <see cref="Bare"/>; immutable.
+/// </summary>
+public sealed class Solution
+{
+    /// <summary>The bound model (parameters as solved).</summary>
+    public BoundModel Model { get; }
+    /// <summary>H_MF(k) of the saddle point, or the bare H(k).</summary>
+    public IBlochSource Hamiltonian { get; }
+    /// <summary>(r, lambda) per shell group; null for the bare model.</summary>
+    public MeanFieldAmplitudes? Amplitudes { get; }
+    /// <summary>The saddle point when solved in this process (null for files and bare models).</summary>
+    public SaddlePoint? SaddlePoint { get; }
+    /// <summary>The sampling mesh of the solve (null for momentum-free lattices).</summary>
+    public KMesh? Mesh { get; }
+    /// <summary>Chemical potential (energy unit).</summary>
+    public double Mu { get; }
+    /// <summary>How <see cref="Mu"/> was fixed.</summary>
+    public ChemicalPotentialRule MuRule { get; }
+    /// <summary>k_B T (energy unit).</summary>
+    public double Temperature { get; }
+    /// <summary>True on the r = 0 (local-moment) branch.</summary>
+    public bool Decoupled { get; }
+    public SolutionOrigin Origin { get; }
+    /// <summary>The solution file, for <see cref="SolutionOrigin.File"/>; otherwise null.</summary>
+    public string? SourcePath { get; }
+    /// <summary>The node search that placed mu (T = 0 between bands), reused by the spectrum digest; null otherwise.</summary>
+    internal NodeSearchResult? PlacementNodes { get; }
+
+    private Solution(BoundModel model, IBlochSource hamiltonian, MeanFieldAmplitudes? amplitudes, SaddlePoint? saddlePoint,
+                     KMesh? mesh, FermiLevelPlacement.Placement placement, double temperature, bool decoupled,
+                     SolutionOrigin origin, string? sourcePath)
+    {
+        Model = model; Hamiltonian = hamiltonian; Amplitudes = amplitudes; SaddlePoint = saddlePoint; Mesh = mesh;
+        Mu = placement.Mu; MuRule = placement.Rule; PlacementNodes = placement.Nodes;
+        Temperature = temperature; Decoupled = decoupled; Origin = origin; SourcePath = sourcePath;
+    }
+
+    /// <summary>Electrons per cell fill a whole number of bands, between 1 and Size - 1: gaps and nodes are defined.</summary>
+    public bool WholeFilling => Model.ElectronsPerCell >= 1 && Model.ElectronsPerCell < Hamiltonian.Size
+                                && Math.Abs(Model.ElectronsPerCell - Math.Round(Model.ElectronsPerCell)) <= WholeFillingTolerance;
+
+    /// <summary>Filled bands n_occ (meaningful when <see cref="WholeFilling"/>).</summary>
+    public int OccupiedBands => (int)Math.Round(Model.ElectronsPerCell);
+
+    /// <summary>Electron counts within this of an integer fill whole bands (electrons per cell).</summary>
+    public const double WholeFillingTolerance = 1e-9;
+
+    /// <summary>Plain words for the origin: "solved", "solution file PATH", "bare model".</summary>
+    public string OriginText => Origin switch
+    {
+        SolutionOrigin.File => $"solution file {SourcePath}",
+        SolutionOrigin.BareModel => "bare model",
+        _ => "solved",
+    };
+
+    /// <summary>
+    /// The handle of a converged saddle point of <paramref name="model"/> solved with <paramref name="settings"/>. At T = 0
+    /// with a whole filling, mu is placed by <see cref="FermiLevelPlacement"/> (the node energy of a semimetal).
+    /// </summary>
+    /// <exception cref="ArgumentException">The saddle point did not converge.</exception>
+    public static Solution FromSaddlePoint(BoundModel model, SaddlePoint saddlePoint, SolverSettings settings)
+    {
+        if (!saddlePoint.Converged) throw new ArgumentException("a solution handle needs a converged saddle point");
+        var ham = new RenormalizedHamiltonian(new BlochHamiltonian(model), saddlePoint.Amplitudes);
+        var mesh = model.IsMomentumFree ? null : new KMesh(model.Lattice, settings.Mesh, settings.Shifted);
+        bool decoupled = saddlePoint.Branch == SaddlePointBranch.Decoupled;
+        var placement = Place(ham, model, mesh, saddlePoint.Mu, saddlePoint.Temperature,
+                              saddlePoint.Temperature > 0 ? ChemicalPotentialRule.FermiDirac : ChemicalPotentialRule.GroundStateInBand, decoupled);
+        return new Solution(model, ham, saddlePoint.Amplitudes, saddlePoint, mesh, placement, saddlePoint.Temperature,
+                            decoupled, SolutionOrigin.Solved, null);
+    }
+
+    /// <summary>
+    /// A solution file written by `solve`, with its model re-bound at the solution's parameters (plus
+    /// <paramref name="extraOverrides"/>, which must not change what the solution depends on).
+    /// </summary>
+    /// <exception cref="InvalidDataException">Not a solution file, not converged, its model missing or changed.</exception>
+    public static Solution Load(string path, IReadOnlyDictionary<string, string>? extraOverrides = null)
+    {
+        if (!File.Exists(path)) throw new InvalidDataException($"{path}: solution file not found");
+        var doc = SolutionDocument.Load(path);
+        if (!doc.Converged) throw new InvalidDataException($"{path}: the solution did not converge; it cannot be used");
+        var overrides = doc.Parameters.ToDictionary(p => p.Key, p => p.Value.ToString("R", CultureInfo.InvariantCulture));
+        foreach (var kv in extraOverrides ?? new Dictionary<string, string>()) overrides[kv.Key] = kv.Value;
+        if (!File.Exists(doc.ModelPath)) throw new InvalidDataException($"{path}: its model file '{doc.ModelPath}' is not found");
+        var model = ModelBinder.Bind(ModelFile.Load(doc.ModelPath), overrides);
+        var amp = doc.AmplitudesFor(model, path);
+        var ham = new RenormalizedHamiltonian(new BlochHamiltonian(model), amp);
+        KMesh? mesh = model.IsMomentumFree || doc.Sampling.Mesh is not int n ? null : new KMesh(model.Lattice, n, doc.Sampling.Shifted ?? true);
+        var rule = Enum.GetValues<ChemicalPotentialRule>().FirstOrDefault(r => SolutionDocument.RuleName(r) == doc.MuRule, ChemicalPotentialRule.FromFile);
+        return new Solution(model, ham, amp, null, mesh, new(doc.Mu, rule, null), doc.Temperature,
+                            doc.Branch == "decoupled", SolutionOrigin.File, path);
+    }
+
+    /// <summary>
+    /// The bare model on a <paramref name="meshDivisions"/> mesh at T = 0: mu from the ordered states (the middle of a
+    /// window of no states is placed at a node energy, as for solutions).
+    /// </summary>
+    /// <exception cref="ArgumentException">A momentum-free lattice, or a mesh below 2 divisions.</exception>
+    public static Solution Bare(BoundModel model, int meshDivisions)
+    {
+        if (model.IsMomentumFree) throw new ArgumentException("a momentum-free lattice has no bare k-resolved bands");
+        if (meshDivisions < 2) throw new ArgumentException($"mesh must be at least 2 divisions, got {meshDivisions}");
+        var ham = new BlochHamiltonian(model);
+        var mesh = new KMesh(model.Lattice, meshDivisions, shifted: false);
+        double mu = Analysis.MeshFermiLevel.Find(Analysis.Dos.MeshSpectrum.Compute(ham, mesh, withProjections: false), model.ElectronsPerCell);
+        var placement = Place(ham, model, mesh, mu, 0, ChemicalPotentialRule.GroundStateInBand, decoupled: false);
+        return new Solution(model, ham, null, null, mesh, placement, 0, false, SolutionOrigin.BareModel, null);
+    }
+
+    private static FermiLevelPlacement.Placement Place(IBlochSource ham, BoundModel model, KMesh? mesh, double mu, double temperature,
+                                                       ChemicalPotentialRule rule, bool decoupled)
+    {
+        double ne = model.ElectronsPerCell;
+        int occ = (int)Math.Round(ne);
+        bool whole = ne >= 1 && ne < ham.Size && Math.Abs(ne - occ) <= WholeFillingTolerance;
+        if (temperature > 0 || mesh is null || decoupled || !whole) return new(mu, rule, null);
+        return FermiLevelPlacement.Window(ham, mesh, occ) is { } w
+            ? FermiLevelPlacement.InWindow(ham, occ, w.Lower, w.Upper)
+            : new(mu, rule, null);
+    }
+}
