@@ -210,7 +210,9 @@ public static class NodeSearch
                 cone.Velocity, cone.Singular, cone.DetVelocity, cone.Tilt, cone.TiltRatio, deg,
                 HighSymmetryLocator.Locate(lattice, k, 1e3 * SpectrumTolerances.MergeFraction), orbit[i]);
         });
-        return nodes.OrderBy(n => n.Orbit).ThenBy(n => n.Reduced.X).ThenBy(n => n.Reduced.Y).ThenBy(n => n.Reduced.Z).ToList();
+        // Sorted on reduced coordinates rounded to the merge scale, so near-ties order the same way in every run.
+        static double Key(double x) => Math.Round(x / SpectrumTolerances.MergeFraction);
+        return nodes.OrderBy(n => n.Orbit).ThenBy(n => Key(n.Reduced.X)).ThenBy(n => Key(n.Reduced.Y)).ThenBy(n => Key(n.Reduced.Z)).ToList();
     }
 
     // Orbit labels: nodes that a lattice operation maps onto each other at the same energy share one (union-find).
