@@ -25,7 +25,7 @@ namespace Meanfield.Solver;
 /// What it needs from the state table: the energy of every full-mesh k-point and band, E[k * Bands + n], k in
 /// <see cref="KMesh.Index"/> order, bands ascending at each k. Nothing is stored per tetrahedron: cells are walked
 /// with their corner indices computed on the fly, and cells whose 8 (2D: 4) corners lie on one side of mu are counted
-/// whole. Memory: one weight per state.
+/// whole. Memory: one weight per state. One instance serves one iteration: <see cref="Solve"/> is not re-entrant.
 /// </summary>
 public sealed class TetrahedronFilling
 {
@@ -37,7 +37,18 @@ public sealed class TetrahedronFilling
     public const double BracketTolerance = 1e-15;
     /// <summary>A count missed by more than this times max(1, N_e) is reported (a dispersionless band at mu).</summary>
     public const double CountFailure = 1e-9;
+    /// <summary>
+    /// Simplices whose corner energies agree within this times the largest |E| are flat. On a shifted mesh the cell
+    /// centred at Gamma (and, for even divisions, at the other points with coordinates 0 or 1/2) has all corners
+    /// equivalent by symmetry, so the interpolated band is constant there and N(mu) jumps by 1/N_k per such cell and
+    /// band; mu then stays at that energy and the flat simplices are filled partially, which keeps the occupations
+    /// continuous in the amplitudes. The scale is the rounding of symmetry-equal eigenvalues.
+    /// </summary>
+    public const double FlatTolerance = 1e-11;
     private const int MaxSteps = 200;
+    private double _scale, _flat;
+    private readonly List<double> _flatLevels = [];
+    private bool _pinned;
 
     private readonly int _n1, _n2, _n3, _cellCorners, _perCell, _vertices;
     private readonly int[] _pattern;
@@ -95,6 +106,8 @@ public sealed class TetrahedronFilling
             throw new ArgumentException($"{electrons} electrons per cell exceed the {Bands} bands sampled");
         long t0 = System.Diagnostics.Stopwatch.GetTimestamp();
         BandRanges(energies);
+        _scale = Math.Max(Math.Max(Math.Abs(_bandMin[0]), Math.Abs(_bandMax[Bands - 1])), double.Epsilon);
+        _flat = FlatTolerance * _scale;
         LastCountPasses = 0;
         int m = (int)Math.Round(electrons);
         bool integer = Math.Abs(electrons - m) <= tolerance;
@@ -112,8 +125,8 @@ public sealed class TetrahedronFilling
             // Bands are ascending at every k, so band edges are ordered: N(bottom of band b) <= b and N(top of b) >= b+1.
             int b = integer ? m : (int)Math.Floor(electrons);
             double lo = _bandMin[b], hi = integer ? _bandMax[m - 1] : _bandMax[b];
-            double mu = FindMu(energies, electrons, lo, hi, muHint);
-            double count = FillWeights(energies, mu);
+            var (mu, flatFraction) = FindMu(energies, electrons, lo, hi, muHint);
+            double count = FillWeights(energies, mu, flatFraction);
             result = new(mu, new FermiWindow(mu, mu), count);
         }
         LastSeconds = (System.Diagnostics.Stopwatch.GetTimestamp() - t0) / (double)System.Diagnostics.Stopwatch.Frequency;
@@ -132,58 +145,113 @@ public sealed class TetrahedronFilling
             }
     }
 
-    private double FindMu(double[] energies, double electrons, double lo, double hi, double? hint)
+    /// <summary>
+    /// Safeguarded Newton on N(mu) = N_e inside [lo, hi]. Returns mu and the filled fraction of the flat simplices at
+    /// mu (0 when there are none): when N(mu) jumps across N_e at the energy of flat simplices, mu stays there and they
+    /// are filled partially, like a discrete level.
+    /// </summary>
+    private (double Mu, double FlatFraction) FindMu(double[] energies, double electrons, double lo, double hi, double? hint)
     {
-        double scale = Math.Max(_bandMax[Bands - 1] - _bandMin[0], double.Epsilon);
         double tolerance = CountTolerance * Math.Max(1.0, electrons);
         double mu = hint is { } h && h > lo && h < hi ? h : 0.5 * (lo + hi);
+        CollectFlatLevels(energies, lo, hi);
         for (int it = 0; it < MaxSteps; it++)
         {
-            var (n, dn) = Count(energies, mu);
-            double r = n - electrons;
-            if (Math.Abs(r) < tolerance) return mu;
+            var (below, flat, dn) = Count(energies, mu);
+            if (flat > 0 && electrons >= below - tolerance && electrons <= below + flat + tolerance)
+            {
+                // Report the level itself (mu is only within the flat tolerance of it), counted there again.
+                foreach (var level in _flatLevels)
+                    if (Math.Abs(level - mu) <= _flat && level != mu)
+                    {
+                        mu = level;
+                        (below, flat, _) = Count(energies, mu);
+                        break;
+                    }
+                return (mu, Math.Clamp((electrons - below) / flat, 0, 1));
+            }
+            double r = (electrons < below ? below : below + flat) - electrons;
+            if (Math.Abs(r) < tolerance) return (mu, flat > 0 && r > 0 ? 1 : 0);
             if (r > 0) hi = mu; else lo = mu;
-            if (hi - lo < BracketTolerance * scale) return 0.5 * (lo + hi);
+            if (hi - lo < BracketTolerance * _scale) return (0.5 * (lo + hi), 0);
             double next = dn > 0 ? mu - r / dn : double.NaN;
             mu = next > lo && next < hi ? next : 0.5 * (lo + hi);
+            // N(mu) jumps at a flat level: try the level itself once it is bracketed (Newton would oscillate across).
+            foreach (var level in _flatLevels)
+                if (level > lo + _flat && level < hi - _flat) { mu = level; break; }
         }
-        return mu;
+        return (mu, 0);
+    }
+
+    /// <summary>
+    /// Energies of flat cells (all corners within the flat tolerance) of the bands that can hold mu in [lo, hi]: the
+    /// cells centred on symmetric points of a shifted mesh. One pass of corner reads, no simplex work.
+    /// </summary>
+    private void CollectFlatLevels(double[] energies, double lo, double hi)
+    {
+        _flatLevels.Clear();
+        var (_, first, _) = Active(lo);
+        var (_, _, last) = Active(hi);
+        Span<int> corner = stackalloc int[8];
+        Span<double> cell = stackalloc double[8];
+        for (int i1 = 0; i1 < _n1; i1++)
+            for (int i2 = 0; i2 < _n2; i2++)
+                for (int i3 = 0; i3 < _n3; i3++)
+                {
+                    CellCorners(i1, i2, i3, corner);
+                    for (int n = first; n < last; n++)
+                    {
+                        var (a, b) = Gather(energies, corner, n, cell);
+                        if (b - a > _flat || b < lo || a > hi) continue;
+                        double level = 0.5 * (a + b);
+                        bool known = false;
+                        foreach (var l in _flatLevels) known |= Math.Abs(l - level) <= _flat;
+                        if (!known) _flatLevels.Add(level);
+                    }
+                }
     }
 
     /// <summary>Bands wholly below mu and the [first, last) range of bands that straddle it.</summary>
     private (int Full, int First, int Last) Active(double mu)
     {
         int first = 0;
-        while (first < Bands && _bandMax[first] <= mu) first++;
+        while (first < Bands && _bandMax[first] < mu - _flat) first++;
         int last = first;
-        while (last < Bands && _bandMin[last] < mu) last++;
+        while (last < Bands && _bandMin[last] < mu + _flat) last++;
         return (first, first, last);
     }
 
-    /// <summary>N(mu) and the tetrahedron DOS dN/dmu, parallel over slabs of cells.</summary>
-    private (double N, double D) Count(double[] energies, double mu)
+    /// <summary>
+    /// N(mu) without the flat simplices at mu, their count (both in electrons per cell) and the tetrahedron DOS
+    /// dN/dmu, parallel over slabs of cells.
+    /// </summary>
+    private (double Below, double Flat, double D) Count(double[] energies, double mu)
     {
         LastCountPasses++;
         var (full, first, last) = Active(mu);
-        if (first == last) return (full, 0);
+        if (first == last) return (full, 0, 0);
         int chunks = Chunks(1);
-        var partial = new double[2 * chunks];
+        var partial = new double[3 * chunks];
         Parallel.For(0, chunks, c =>
         {
-            var (f, d) = CountSlab(energies, mu, first, last, _n1 * c / chunks, _n1 * (c + 1) / chunks);
-            partial[2 * c] = f; partial[2 * c + 1] = d;
+            var (f, flat, d) = CountSlab(energies, mu, first, last, _n1 * c / chunks, _n1 * (c + 1) / chunks);
+            partial[3 * c] = f; partial[3 * c + 1] = flat; partial[3 * c + 2] = d;
         });
-        double sf = 0, sd = 0;
-        for (int c = 0; c < chunks; c++) { sf += partial[2 * c]; sd += partial[2 * c + 1]; }
-        return (full + sf * _simplexWeight, sd * _simplexWeight);
+        double sf = 0, sflat = 0, sd = 0;
+        for (int c = 0; c < chunks; c++) { sf += partial[3 * c]; sflat += partial[3 * c + 1]; sd += partial[3 * c + 2]; }
+        return (full + sf * _simplexWeight, sflat * _simplexWeight, sd * _simplexWeight);
     }
 
-    private (double Fraction, double D) CountSlab(double[] energies, double mu, int first, int last, int i1Start, int i1End)
+    /// <summary>A simplex whose corners agree within the flat tolerance and sit within it of mu.</summary>
+    private bool FlatAtMu(ReadOnlySpan<double> sorted, double mu) =>
+        sorted[_vertices - 1] - sorted[0] <= _flat && sorted[0] <= mu + _flat && sorted[_vertices - 1] >= mu - _flat;
+
+    private (double Fraction, double Flat, double D) CountSlab(double[] energies, double mu, int first, int last, int i1Start, int i1End)
     {
         Span<int> corner = stackalloc int[8];
         Span<double> cell = stackalloc double[8];
         Span<double> e = stackalloc double[4];
-        double fraction = 0, dos = 0;
+        double fraction = 0, flat = 0, dos = 0;
         for (int i1 = i1Start; i1 < i1End; i1++)
             for (int i2 = 0; i2 < _n2; i2++)
                 for (int i3 = 0; i3 < _n3; i3++)
@@ -192,60 +260,61 @@ public sealed class TetrahedronFilling
                     for (int n = first; n < last; n++)
                     {
                         var (lo, hi) = Gather(energies, corner, n, cell);
-                        if (hi <= mu) { fraction += _perCell; continue; }
-                        if (lo >= mu) continue;
+                        if (hi < mu - _flat) { fraction += _perCell; continue; }
+                        if (lo > mu + _flat) continue;
                         for (int s = 0; s < _perCell; s++)
                         {
                             for (int v = 0; v < _vertices; v++) e[v] = cell[_pattern[s * _vertices + v]];
+                            if (_vertices == 4) Sort4(e); else Sort3(e);
+                            if (FlatAtMu(e, mu)) { flat += 1; continue; }
                             if (_vertices == 4)
                             {
-                                Sort4(e);
                                 var (f, d) = SimplexKernel.TetraFractionAndDensity(e, mu);
                                 fraction += f; dos += d;
                             }
-                            else
-                            {
-                                Sort3(e);
-                                fraction += SimplexKernel.TriangleFraction(e, mu); dos += SimplexKernel.TriangleDensity(e, mu);
-                            }
+                            else { fraction += SimplexKernel.TriangleFraction(e, mu); dos += SimplexKernel.TriangleDensity(e, mu); }
                         }
                     }
                 }
-        return (fraction, dos);
+        return (fraction, flat, dos);
     }
 
     /// <summary>
-    /// Weights at mu. Slabs of cells write to the k-points of their own and the next plane, so even slabs run in
-    /// parallel, then odd ones (no two running slabs share a plane, nothing is stored per thread). Returns N(mu).
+    /// Weights at mu, with the flat simplices at mu filled to <paramref name="flatFraction"/>. Slabs of cells write to
+    /// the k-points of their own and the next plane, so even slabs run in parallel, then odd ones (no two running slabs
+    /// share a plane, nothing is stored per thread). Returns N(mu), the sum of the weights.
     /// </summary>
-    private double FillWeights(double[] energies, double mu)
+    private double FillWeights(double[] energies, double mu, double flatFraction)
     {
-        var (full, first, last) = Active(mu);
+        _pinned = flatFraction > 0 && flatFraction < 1;
+        var (_, first, last) = Active(mu);
         for (int k = 0; k < Mesh.Count; k++)
             for (int n = 0; n < Bands; n++) _weights[k * Bands + n] = n < first ? _stateWeight : 0;
-        if (first == last) return full;
-        int chunks = Chunks(2);
-        if (chunks < 2) WeightSlab(energies, mu, first, last, 0, _n1);
-        else
-            for (int phase = 0; phase < 2; phase++)
-                Parallel.For(0, chunks / 2, j =>
-                {
-                    int c = 2 * j + phase;
-                    WeightSlab(energies, mu, first, last, _n1 * c / chunks, _n1 * (c + 1) / chunks);
-                });
+        if (first < last)
+        {
+            int chunks = Chunks(2);
+            if (chunks < 2) WeightSlab(energies, mu, flatFraction, first, last, 0, _n1);
+            else
+                for (int phase = 0; phase < 2; phase++)
+                    Parallel.For(0, chunks / 2, j =>
+                    {
+                        int c = 2 * j + phase;
+                        WeightSlab(energies, mu, flatFraction, first, last, _n1 * c / chunks, _n1 * (c + 1) / chunks);
+                    });
+        }
         double count = 0;
         foreach (var w in _weights) count += w;
         return count;
     }
 
-    private void WeightSlab(double[] energies, double mu, int first, int last, int i1Start, int i1End)
+    private void WeightSlab(double[] energies, double mu, double flatFraction, int first, int last, int i1Start, int i1End)
     {
         Span<int> corner = stackalloc int[8];
         Span<double> cell = stackalloc double[8];
         Span<double> e = stackalloc double[4];
         Span<double> w = stackalloc double[4];
         Span<int> order = stackalloc int[4];
-        double quarter = _simplexWeight / _vertices;
+        double share = _simplexWeight / _vertices;
         for (int i1 = i1Start; i1 < i1End; i1++)
             for (int i2 = 0; i2 < _n2; i2++)
                 for (int i3 = 0; i3 < _n3; i3++)
@@ -254,23 +323,28 @@ public sealed class TetrahedronFilling
                     for (int n = first; n < last; n++)
                     {
                         var (lo, hi) = Gather(energies, corner, n, cell);
-                        if (hi <= mu)
+                        if (hi < mu - _flat)
                         {
-                            for (int c = 0; c < _cellCorners; c++) _weights[corner[c] * Bands + n] += _multiplicity[c] * quarter;
+                            for (int c = 0; c < _cellCorners; c++) _weights[corner[c] * Bands + n] += _multiplicity[c] * share;
                             continue;
                         }
-                        if (lo >= mu) continue;
+                        if (lo > mu + _flat) continue;
                         for (int s = 0; s < _perCell; s++)
                         {
                             for (int v = 0; v < _vertices; v++) { order[v] = _pattern[s * _vertices + v]; e[v] = cell[order[v]]; }
                             SortWithOrder(e, order, _vertices);
+                            if (FlatAtMu(e, mu))
+                            {
+                                for (int v = 0; v < _vertices; v++) _weights[corner[order[v]] * Bands + n] += flatFraction * share;
+                                continue;
+                            }
                             if (_vertices == 4)
                             {
                                 SimplexKernel.TetraIntegrationWeights(e, mu, w);
                                 if (BloechlCorrection)
                                 {
                                     // Bloechl et al. 1994, Eq. (22): dw_i = D_T(mu)/40 sum_j (e_j - e_i).
-                                    double d = SimplexKernel.TetraFractionAndDensity(e, mu).D / 40, sum = e[0] + e[1] + e[2] + e[3];
+                                    double d = BloechlDensity(e, mu, flatFraction) / 40, sum = e[0] + e[1] + e[2] + e[3];
                                     for (int v = 0; v < 4; v++) w[v] += d * (sum - 4 * e[v]);
                                 }
                             }
@@ -279,6 +353,18 @@ public sealed class TetrahedronFilling
                         }
                     }
                 }
+    }
+
+    /// <summary>
+    /// D_T(mu) for Bloechl's correction. A tetrahedron that shares the flat cell's corners has its DOS jump at the flat
+    /// level; while mu is pinned there, the flat fraction x plays the role of the position inside the jump, so D is
+    /// taken as (1 - x) D(level-) + x D(level+), which keeps the weights continuous as x runs from 0 to 1.
+    /// </summary>
+    private double BloechlDensity(ReadOnlySpan<double> e, double mu, double flatFraction)
+    {
+        if (!_pinned) return SimplexKernel.TetraFractionAndDensity(e, mu).D;
+        return (1 - flatFraction) * SimplexKernel.TetraFractionAndDensity(e, mu - 2 * _flat).D
+               + flatFraction * SimplexKernel.TetraFractionAndDensity(e, mu + 2 * _flat).D;
     }
 
     /// <summary>Slabs along i1: as many as cores (times <paramref name="factor"/>), each at least one plane thick.</summary>

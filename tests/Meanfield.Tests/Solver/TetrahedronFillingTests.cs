@@ -218,3 +218,47 @@ public class TetrahedronFillingTests(ITestOutputHelper output)
         Assert.Throws<ArgumentException>(() => new TetrahedronFilling(mesh, 0));
     }
 }
+
+/// <summary>
+/// A shifted mesh has a cell centred on Gamma whose 8 corners (u = +-1/(2N)) all lie at -6t cos(pi/N) for the
+/// simple-cubic band (elementary), so the interpolated band is flat there and N(mu) jumps by 1/N_k at the band
+/// bottom. Counts inside the jump are met by filling that cell partially, with mu at the flat level.
+/// </summary>
+public class TetrahedronFlatCellTests
+{
+    [Fact]
+    public void CountInsideTheJumpOfAFlatCellFillsItPartially()
+    {
+        const int n = 4;
+        var mesh = new KMesh(Lattice.Create(LatticeKind.SimpleCubic, 1.0), n, shifted: true);
+        var e = new double[mesh.Count];
+        for (int k = 0; k < mesh.Count; k++)
+        {
+            var u = mesh.Reduced(k);
+            e[k] = -2 * (Math.Cos(2 * Math.PI * u.X) + Math.Cos(2 * Math.PI * u.Y) + Math.Cos(2 * Math.PI * u.Z));
+        }
+        double level = -6 * Math.Cos(Math.PI / n), jump = 1.0 / mesh.Count;
+        var tetra = new TetrahedronFilling(mesh, 1, bloechl: false);
+        var corrected = new TetrahedronFilling(mesh, 1);
+        double previousEnergy = 0;
+        foreach (double x in new[] { 0.1, 0.5, 0.9 })
+        {
+            var r = tetra.Solve(e, x * jump);
+            Assert.Equal(level, r.Mu, 12);
+            Assert.Equal(x * jump, r.Electrons, 14);
+            double band = 0;
+            for (int k = 0; k < e.Length; k++) band += tetra.Weights[k] * e[k];
+            // Every electron of the flat cell sits at the level: the band energy is the level times the count
+            // (linear weights; Bloechl's correction moves weight between corners at different energies).
+            Assert.Equal(level * x * jump, band, 12);
+            var rc = corrected.Solve(e, x * jump);
+            Assert.Equal(level, rc.Mu, 12);
+            Assert.Equal(x * jump, corrected.Weights.ToArray().Sum(), 14);
+            Assert.True(band < previousEnergy);
+            previousEnergy = band;
+        }
+        var above = tetra.Solve(e, 1.5 * jump);
+        Assert.True(above.Mu > level);
+        Assert.Equal(1.5 * jump, above.Electrons, 12);
+    }
+}
