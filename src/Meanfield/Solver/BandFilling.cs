@@ -3,21 +3,40 @@ namespace Meanfield.Solver;
 /// <summary>
 /// The result of filling a <see cref="StateTable"/> with N_e electrons per cell at temperature T: the chemical potential
 /// mu, the band grand potential Omega_band = -T sum_n Avg_k ln(1 + e^{-(E - mu)/T}) per cell, and the thermal averages
-/// n_f,g = sum f(E - mu) w_g and dOmega/dr_g = sum f(E - mu) dE/dr_g (energy unit, per cell).
+/// n_f,g = sum f(E - mu) w_g and dOmega/dr_g = sum f(E - mu) dE/dr_g (energy unit, per cell). At T = 0 on a k-mesh
+/// the Fermi function is replaced by the tetrahedron integration weights (<see cref="TetrahedronFilling"/>) and
+/// Omega_band = sum w (E - mu).
 /// </summary>
 public sealed record BandFilling(double Mu, double GrandPotential, double[] FOccupation, double[] GrandPotentialSlope,
                                  FermiLevelStatus Status)
 {
     /// <summary>
-    /// Finds mu with N(mu) = N_e: at T &gt; 0 by safeguarded Newton inside a bracket (N(mu) is monotone); at T = 0 by
-    /// ordering the states and placing mu midway between the last occupied and the first empty one.
+    /// At T = 0, every mu with N(mu) = N_e (mu is its middle; the occupations are the same anywhere inside); a single
+    /// point for a metal. Null at T &gt; 0, where mu is unique.
     /// </summary>
-    public static BandFilling Compute(StateTable table, double electrons, double temperature, double? muHint = null)
+    public FermiWindow? Window { get; init; }
+
+    /// <summary>
+    /// Finds mu with N(mu) = N_e: at T &gt; 0 by safeguarded Newton inside a bracket (N(mu) is monotone). At T = 0 with
+    /// <paramref name="tetrahedra"/> (k-meshes) by the linear tetrahedron method with Bloechl's corrections; at T = 0
+    /// without it (quadratures such as <see cref="LocalDosStateSum"/>) by ordering the states and placing mu midway
+    /// between the last occupied and the first empty one (a state cut by the Fermi level is filled partially).
+    /// </summary>
+    /// <param name="table">The states; with <paramref name="tetrahedra"/> the full mesh in mesh order (k * bands + n).</param>
+    /// <param name="electrons">N_e per cell, in [0, total weight of the table].</param>
+    /// <param name="temperature">T &gt;= 0 in the energy unit.</param>
+    /// <param name="muHint">A guess for mu (the last one of an iteration) that starts Newton; optional.</param>
+    /// <param name="tetrahedra">The tetrahedron filling of the table's mesh, used at T = 0 only; optional.</param>
+    /// <exception cref="ArgumentException">More electrons than states, or a table that does not match the mesh.</exception>
+    public static BandFilling Compute(StateTable table, double electrons, double temperature, double? muHint = null,
+                                      TetrahedronFilling? tetrahedra = null)
     {
+        if (temperature <= 0 && tetrahedra is not null) return ComputeTetrahedra(table, electrons, muHint, tetrahedra);
         double mu = temperature > 0 ? SolveMuThermal(table, electrons, temperature, muHint) : 0;
         int partial = -1; double fraction = 0;
         var status = FermiLevelStatus.Regular;
-        if (temperature <= 0) (mu, partial, fraction, status) = SolveMuGround(table, electrons);
+        FermiWindow? window = null;
+        if (temperature <= 0) (mu, partial, fraction, status, window) = SolveMuGround(table, electrons);
 
         int g = table.Groups;
         var nf = new double[g]; var slope = new double[g];
@@ -33,7 +52,31 @@ public sealed record BandFilling(double Mu, double GrandPotential, double[] FOcc
             int b = s * g;
             for (int q = 0; q < g; q++) { nf[q] += wf * table.FWeight[b + q]; slope[q] += wf * table.EnergySlope[b + q]; }
         }
-        return new BandFilling(mu, omega, nf, slope, status);
+        return new BandFilling(mu, omega, nf, slope, status) { Window = window };
+    }
+
+    /// <summary>T = 0 sums with tetrahedron weights: n_f = sum w f-weight, dOmega/dr = sum w dE/dr, Omega = sum w (E - mu).</summary>
+    private static BandFilling ComputeTetrahedra(StateTable table, double electrons, double? muHint, TetrahedronFilling tetrahedra)
+    {
+        if (table.Count != tetrahedra.Weights.Length)
+            throw new ArgumentException($"the state table holds {table.Count} states, the tetrahedron mesh {tetrahedra.Weights.Length}: it must be the full mesh");
+        var result = tetrahedra.Solve(table.Energy, electrons, muHint);
+        var weights = tetrahedra.Weights;
+        double mu = result.Mu;
+        int g = table.Groups;
+        var nf = new double[g]; var slope = new double[g];
+        double omega = 0;
+        for (int s = 0; s < table.Count; s++)
+        {
+            double w = weights[s];
+            if (w == 0) continue;
+            omega += w * (table.Energy[s] - mu);
+            int b = s * g;
+            for (int q = 0; q < g; q++) { nf[q] += w * table.FWeight[b + q]; slope[q] += w * table.EnergySlope[b + q]; }
+        }
+        var status = Math.Abs(result.Electrons - electrons) > TetrahedronFilling.CountFailure * Math.Max(1.0, electrons)
+            ? FermiLevelStatus.DegenerateAtFermiLevel : FermiLevelStatus.Regular;
+        return new BandFilling(mu, omega, nf, slope, status) { Window = result.Window };
     }
 
     private static double SolveMuThermal(StateTable table, double electrons, double t, double? hint)
@@ -80,7 +123,7 @@ public sealed record BandFilling(double Mu, double GrandPotential, double[] FOcc
         return (sn, sd);
     }
 
-    private static (double mu, int partial, double fraction, FermiLevelStatus status) SolveMuGround(StateTable table, double electrons)
+    private static (double mu, int partial, double fraction, FermiLevelStatus status, FermiWindow window) SolveMuGround(StateTable table, double electrons)
     {
         var order = new int[table.Count];
         for (int i = 0; i < order.Length; i++) order[i] = i;
@@ -88,23 +131,23 @@ public sealed record BandFilling(double Mu, double GrandPotential, double[] FOcc
         Array.Sort(keys, order);
         double spread = keys[^1] - keys[0] + 1e-300;
         double cumulative = 0, tolerance = 1e-10 * Math.Max(1.0, electrons);
-        if (electrons <= tolerance) return (keys[0] - 1e-9 * spread, -1, 0, FermiLevelStatus.Regular);
+        if (electrons <= tolerance) return (keys[0] - 1e-9 * spread, -1, 0, FermiLevelStatus.Regular, new(keys[0] - 1e-9 * spread, keys[0] - 1e-9 * spread));
         for (int i = 0; i < order.Length; i++)
         {
             double w = table.Weight[order[i]];
             if (cumulative + w < electrons - tolerance) { cumulative += w; continue; }
             if (cumulative + w <= electrons + tolerance)
             {
-                if (i + 1 == order.Length) return (keys[i] + 1e-9 * spread, -1, 0, FermiLevelStatus.Regular);
+                if (i + 1 == order.Length) return (keys[i] + 1e-9 * spread, -1, 0, FermiLevelStatus.Regular, new(keys[i] + 1e-9 * spread, keys[i] + 1e-9 * spread));
                 double gap = keys[i + 1] - keys[i];
                 var status = gap < 1e-9 * spread
                     ? FermiLevelStatus.DegenerateAtFermiLevel
                     : table.UniformWeights && gap < 1e-3 * spread ? FermiLevelStatus.InsideBand : FermiLevelStatus.Regular;
-                return (0.5 * (keys[i] + keys[i + 1]), -1, 0, status);
+                return (0.5 * (keys[i] + keys[i + 1]), -1, 0, status, new(keys[i], keys[i + 1]));
             }
             // The Fermi level cuts this state: occupy it partially (a quadrature node of a continuous band).
             double fraction = (electrons - cumulative) / w;
-            return (keys[i], order[i], fraction, table.UniformWeights ? FermiLevelStatus.InsideBand : FermiLevelStatus.Regular);
+            return (keys[i], order[i], fraction, table.UniformWeights ? FermiLevelStatus.InsideBand : FermiLevelStatus.Regular, new(keys[i], keys[i]));
         }
         throw new ArgumentException($"{electrons} electrons per cell exceed the {table.TotalWeight():G6} states sampled");
     }

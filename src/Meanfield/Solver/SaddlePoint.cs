@@ -24,6 +24,11 @@ public sealed record SaddlePoint
     /// <summary>Free energy of the decoupled (r = 0) solution at the same T, when it exists; null otherwise.</summary>
     public double? DecoupledFreeEnergy { get; init; }
     public required FermiLevelStatus FermiLevel { get; init; }
+    /// <summary>
+    /// At T = 0, every mu with N(mu) = N_e: on a k-mesh the gap of the tetrahedron-interpolated bands (mu at its middle,
+    /// the occupations unchanged anywhere inside), a single point for a metal. Null at T &gt; 0.
+    /// </summary>
+    public FermiWindow? FermiWindow { get; init; }
     /// <summary>How the zone was sampled (mesh or DOS quadrature) and how occupations were smeared.</summary>
     public required string Sampling { get; init; }
     /// <summary>Plain-language notes for the user: why it did not converge and what to try, or caveats.</summary>

@@ -44,7 +44,7 @@ public sealed partial class SaddlePointSolver
         for (int g = 0; g < G; g++) x[G + g] = far;
         var table = _sum.Fill(MeanFieldAmplitudes.Unpack(x));
         _passes++;
-        var fill = BandFilling.Compute(table, remaining, t);
+        var fill = BandFilling.Compute(table, remaining, t, tetrahedra: _tetra);
         double free = fill.GrandPotential + fill.Mu * remaining;
         var groups = new ShellGroupSolution[G];
         var lambda = new double[G];
@@ -62,7 +62,7 @@ public sealed partial class SaddlePointSolver
         {
             Converged = true, Iterations = 0, ResidualNorm = 0, Temperature = t, Mu = fill.Mu, FreeEnergy = free,
             ElectronsPerCell = _model.ElectronsPerCell, Branch = SaddlePointBranch.Decoupled, Groups = groups,
-            Amplitudes = new MeanFieldAmplitudes(new double[G], lambda), DecoupledFreeEnergy = free, FermiLevel = fill.Status,
+            Amplitudes = new MeanFieldAmplitudes(new double[G], lambda), DecoupledFreeEnergy = free, FermiLevel = fill.Status, FermiWindow = fill.Window,
             Sampling = SamplingText(),
         };
     }

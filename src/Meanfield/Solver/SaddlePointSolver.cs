@@ -24,6 +24,8 @@ public sealed partial class SaddlePointSolver
     private int _passes;
     private readonly double _energyScale;
     private double? _lastMu;
+    /// <summary>T = 0 on a k-mesh: tetrahedron weights replace the step occupations (null otherwise).</summary>
+    private readonly TetrahedronFilling? _tetra;
 
     private sealed record GroupInfo(string Name, int Shells, double Q, double Level, int Degeneracy);
 
@@ -56,7 +58,11 @@ public sealed partial class SaddlePointSolver
         _sum = model.IsMomentumFree
             ? new LocalDosStateSum(Bare, settings.DosNodes)
             : new MeshStateSum(Bare, new KMesh(model.Lattice, settings.Mesh, settings.Shifted));
+        if (settings.Temperature <= 0 && _sum is MeshStateSum zone) _tetra = new TetrahedronFilling(zone.Mesh, Bare.Size);
     }
+
+    /// <summary>The T = 0 tetrahedron filling of the k-mesh, or null (T &gt; 0, or a momentum-free lattice).</summary>
+    public TetrahedronFilling? Tetrahedra => _tetra;
 
     private int G => _groups.Length;
 
@@ -100,7 +106,7 @@ public sealed partial class SaddlePointSolver
         var amp = MeanFieldAmplitudes.Unpack(x);
         var table = _sum.Fill(amp);
         _passes++;
-        var fill = BandFilling.Compute(table, _model.ElectronsPerCell, _settings.Temperature, _lastMu);
+        var fill = BandFilling.Compute(table, _model.ElectronsPerCell, _settings.Temperature, _lastMu, _tetra);
         _lastMu = fill.Mu;
         var res = new double[2 * G];
         for (int g = 0; g < G; g++)
@@ -122,7 +128,7 @@ public sealed partial class SaddlePointSolver
     /// <summary>Free energy F(r, lambda) per cell with mu fixed by the electron count (for stationarity checks).</summary>
     public double FreeEnergyAt(MeanFieldAmplitudes amp)
     {
-        var fill = BandFilling.Compute(_sum.Fill(amp), _model.ElectronsPerCell, _settings.Temperature);
+        var fill = BandFilling.Compute(_sum.Fill(amp), _model.ElectronsPerCell, _settings.Temperature, tetrahedra: _tetra);
         return FreeEnergy(amp, fill);
     }
 
@@ -262,7 +268,9 @@ public sealed partial class SaddlePointSolver
             notes.Add(a.Stalled
                 ? $"the iteration stalled at residual {a.Residual:G3} (no step lowered it)."
                 : $"the iteration cap of {_settings.MaxIterations} was reached at residual {a.Residual:G3}.");
-            if (_settings.Temperature <= 0 && a.Filling.Status != FermiLevelStatus.Regular)
+            if (_tetra is not null && a.Filling.Status != FermiLevelStatus.Regular)
+                notes.Add("T = 0: the interpolated bands cannot hold the electron count at any single mu (a dispersionless band at the Fermi level). Use a small temperature (for example --temperature 1K).");
+            else if (_settings.Temperature <= 0 && a.Filling.Status != FermiLevelStatus.Regular)
                 notes.Add("T = 0 with states at the Fermi level on this mesh: occupations jump between iterations. " +
                           "Use a small temperature (for example --temperature 1K) or a shifted mesh with an odd number of divisions.");
             else
@@ -288,11 +296,13 @@ public sealed partial class SaddlePointSolver
             Converged = converged, Iterations = iterations, ResidualNorm = MaxAbs(res), Temperature = _settings.Temperature,
             Mu = fill.Mu, FreeEnergy = FreeEnergy(amp, fill), ElectronsPerCell = _model.ElectronsPerCell, Branch = branch,
             Groups = groups, Amplitudes = amp, DecoupledFreeEnergy = decoupledF, FermiLevel = fill.Status,
-            Sampling = SamplingText(),
+            FermiWindow = fill.Window, Sampling = SamplingText(),
         };
     }
 
     private string SamplingText() => _settings.Temperature > 0
         ? $"{_sum.Description}; Fermi-Dirac occupations at T = {_settings.Temperature:G6}"
-        : $"{_sum.Description}; T = 0 step occupations";
+        : _tetra is null ? $"{_sum.Description}; T = 0 step occupations"
+        : _tetra.BloechlCorrection ? $"{_sum.Description}; T = 0 linear-tetrahedron weights with Bloechl corrections"
+        : $"{_sum.Description}; T = 0 linear-triangle weights";
 }

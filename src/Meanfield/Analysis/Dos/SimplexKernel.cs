@@ -24,6 +24,23 @@ public static class SimplexKernel
         return 1 - z * z * z / (e41 * e42 * e43);
     }
 
+    /// <summary>Occupied fraction n(E) and D(E) = dn/dE of a tetrahedron in one evaluation (sorted corner energies).</summary>
+    public static (double Fraction, double D) TetraFractionAndDensity(ReadOnlySpan<double> e, double E)
+    {
+        if (E <= e[0]) return (0, 0);
+        if (E >= e[3]) return (1, 0);
+        double e21 = e[1] - e[0], e31 = e[2] - e[0], e41 = e[3] - e[0];
+        if (E < e[1]) { double x = E - e[0], c = 1 / (e21 * e31 * e41); return (x * x * x * c, 3 * x * x * c); }
+        double e42 = e[3] - e[1];
+        if (E < e[2])
+        {
+            double e32 = e[2] - e[1], y = E - e[1], a = (e31 + e42) / (e32 * e42), c = 1 / (e31 * e41);
+            return ((e21 * e21 + 3 * e21 * y + 3 * y * y - a * y * y * y) * c, (3 * e21 + 6 * y - 3 * a * y * y) * c);
+        }
+        double z = e[3] - E, d = 1 / (e41 * e42 * (e[3] - e[2]));
+        return (1 - z * z * z * d, 3 * z * z * d);
+    }
+
     /// <summary>D(E) = dn/dE of a tetrahedron and its slope dD/dE (needed by Bloechl's correction).</summary>
     public static (double D, double Slope) TetraDensity(ReadOnlySpan<double> e, double E)
     {
@@ -92,6 +109,70 @@ public static class SimplexKernel
         double ux = b[0] - a[0], uy = b[1] - a[1], uz = b[2] - a[2], vx = c[0] - a[0], vy = c[1] - a[1], vz = c[2] - a[2];
         double cx = uy * vz - uz * vy, cy = uz * vx - ux * vz, cz = ux * vy - uy * vx;
         return 0.5 * Math.Sqrt(cx * cx + cy * cy + cz * cz);
+    }
+
+    /// <summary>
+    /// Integration weights w_i(E) of a tetrahedron (sorted corner energies e, per tetrahedron volume): the integral of
+    /// corner i's linear interpolation weight over the part of the tetrahedron below E, so that for any F interpolated
+    /// linearly between the corners the occupied integral is sum_i w_i F_i, and sum_i w_i equals
+    /// <see cref="TetraFraction"/>. dw_i/dE is the corner weight of <see cref="TetraCornerWeights"/> without the
+    /// correction. Bloechl, Jepsen &amp; Andersen, PRB 49, 16223 (1994), App. B (with V_T / V_G = 1).
+    /// Cases are chosen by strict inequalities, so no denominator vanishes for degenerate corners. Returns sum_i w_i.
+    /// </summary>
+    public static double TetraIntegrationWeights(ReadOnlySpan<double> e, double E, Span<double> w)
+    {
+        if (E <= e[0]) { w[..4].Clear(); return 0; }
+        if (E >= e[3]) { w[..4].Fill(0.25); return 1; }
+        double e21 = e[1] - e[0], e31 = e[2] - e[0], e41 = e[3] - e[0], e32 = e[2] - e[1], e42 = e[3] - e[1], e43 = e[3] - e[2];
+        if (E < e[1])
+        {
+            double x = E - e[0], c = 0.25 * x * x * x / (e21 * e31 * e41);
+            w[0] = c * (4 - x * (1 / e21 + 1 / e31 + 1 / e41)); w[1] = c * x / e21; w[2] = c * x / e31; w[3] = c * x / e41;
+            return 4 * c;
+        }
+        if (E < e[2])
+        {
+            double a = E - e[0], b = E - e[1], u = e[2] - E, v = e[3] - E;
+            double c1 = 0.25 * a * a / (e41 * e31), c2 = 0.25 * a * b * u / (e41 * e32 * e31), c3 = 0.25 * b * b * v / (e42 * e32 * e41);
+            w[0] = c1 + (c1 + c2) * u / e31 + (c1 + c2 + c3) * v / e41;
+            w[1] = c1 + c2 + c3 + (c2 + c3) * u / e32 + c3 * v / e42;
+            w[2] = (c1 + c2) * a / e31 + (c2 + c3) * b / e32;
+            w[3] = (c1 + c2 + c3) * a / e41 + c3 * b / e42;
+            return w[0] + w[1] + w[2] + w[3];
+        }
+        double z = e[3] - E, d = 0.25 * z * z * z / (e41 * e42 * e43);
+        w[0] = 0.25 - d * z / e41; w[1] = 0.25 - d * z / e42; w[2] = 0.25 - d * z / e43;
+        w[3] = 0.25 - d * (4 - z * (1 / e41 + 1 / e42 + 1 / e43));
+        return 1 - 4 * d;
+    }
+
+    /// <summary>
+    /// Integration weights of a triangle (sorted corner energies, per triangle area): the integral of each corner's
+    /// barycentric coordinate over the part below E. The occupied (or empty) part is a small triangle at the lowest
+    /// (highest) corner whose barycentric means are the averages over its vertices (linear triangle method, common
+    /// practice; no Bloechl-type correction in 2D). Returns sum_i w_i = <see cref="TriangleFraction"/>.
+    /// </summary>
+    public static double TriangleIntegrationWeights(ReadOnlySpan<double> e, double E, Span<double> w)
+    {
+        if (E <= e[0]) { w[..3].Clear(); return 0; }
+        if (E >= e[2]) { w[..3].Fill(1.0 / 3); return 1; }
+        if (E < e[1])
+        {
+            double t1 = (E - e[0]) / (e[1] - e[0]), t2 = (E - e[0]) / (e[2] - e[0]), f = t1 * t2;
+            w[0] = f * (3 - t1 - t2) / 3; w[1] = f * t1 / 3; w[2] = f * t2 / 3;
+            return f;
+        }
+        double s0 = (e[2] - E) / (e[2] - e[0]), s1 = (e[2] - E) / (e[2] - e[1]), u = s0 * s1;
+        w[0] = 1.0 / 3 - u * s0 / 3; w[1] = 1.0 / 3 - u * s1 / 3; w[2] = 1.0 / 3 - u * (3 - s0 - s1) / 3;
+        return 1 - u;
+    }
+
+    /// <summary>D(E) = dn/dE of a triangle (sorted corner energies, per triangle area).</summary>
+    public static double TriangleDensity(ReadOnlySpan<double> e, double E)
+    {
+        if (E <= e[0] || E >= e[2]) return 0;
+        if (E < e[1]) return 2 * (E - e[0]) / ((e[1] - e[0]) * (e[2] - e[0]));
+        return 2 * (e[2] - E) / ((e[2] - e[0]) * (e[2] - e[1]));
     }
 
     /// <summary>Occupied fraction of a triangle below E (linear triangle method, sorted corner energies).</summary>

@@ -4,7 +4,7 @@ using Meanfield.Lattices;
 namespace Meanfield.Analysis.Dos;
 
 /// <summary>
-/// Total, integrated and projected DOS of a Bloch source on a Gamma-centred mesh by the linear tetrahedron method
+/// Total, integrated and projected DOS of a Bloch source on a Monkhorst-Pack mesh (Gamma-centred or shifted) by the linear tetrahedron method
 /// (triangles for 2D lattices) or Gaussian broadening. The mesh is diagonalised once at construction; eigenvalues and
 /// per-state projections are kept, eigenvectors are not.
 /// </summary>
@@ -19,7 +19,7 @@ public sealed class TetrahedronDos
     {
         if (mesh.Lattice.Dimension < 2) throw new ArgumentException("The DOS on a mesh needs a lattice with momentum.");
         Spectrum = MeshSpectrum.Compute(source, mesh, withProjections: true);
-        _simplices = mesh.Shifted ? null : MeshSimplices.Build(mesh);
+        _simplices = MeshSimplices.Build(mesh);
         SiteNames = source.Model.Sites.Select(s => s.Name).ToArray();
     }
 
