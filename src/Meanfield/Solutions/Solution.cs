@@ -91,7 +91,8 @@ public sealed class Solution
         var mesh = model.IsMomentumFree ? null : new KMesh(model.Lattice, settings.Mesh, settings.Shifted);
         bool decoupled = saddlePoint.Branch == SaddlePointBranch.Decoupled;
         var placement = Place(ham, model, mesh, saddlePoint.Mu, saddlePoint.Temperature,
-                              saddlePoint.Temperature > 0 ? ChemicalPotentialRule.FermiDirac : ChemicalPotentialRule.GroundStateInBand, decoupled);
+                              saddlePoint.Temperature > 0 ? ChemicalPotentialRule.FermiDirac : ChemicalPotentialRule.GroundStateInBand, decoupled,
+                              saddlePoint.FermiWindow);
         return new Solution(model, ham, saddlePoint.Amplitudes, saddlePoint, mesh, placement, saddlePoint.Temperature,
                             decoupled, SolutionOrigin.Solved, null);
     }
@@ -130,19 +131,19 @@ public sealed class Solution
         var ham = new BlochHamiltonian(model);
         var mesh = new KMesh(model.Lattice, meshDivisions, shifted: false);
         double mu = Analysis.MeshFermiLevel.Find(Analysis.Dos.MeshSpectrum.Compute(ham, mesh, withProjections: false), model.ElectronsPerCell);
-        var placement = Place(ham, model, mesh, mu, 0, ChemicalPotentialRule.GroundStateInBand, decoupled: false);
+        var placement = Place(ham, model, mesh, mu, 0, ChemicalPotentialRule.GroundStateInBand, decoupled: false, window: null);
         return new Solution(model, ham, null, null, mesh, placement, 0, false, SolutionOrigin.BareModel, null);
     }
 
     private static FermiLevelPlacement.Placement Place(IBlochSource ham, BoundModel model, KMesh? mesh, double mu, double temperature,
-                                                       ChemicalPotentialRule rule, bool decoupled)
+                                                       ChemicalPotentialRule rule, bool decoupled, FermiWindow? window)
     {
         double ne = model.ElectronsPerCell;
         int occ = (int)Math.Round(ne);
         bool whole = ne >= 1 && ne < ham.Size && Math.Abs(ne - occ) <= WholeFillingTolerance;
         if (temperature > 0 || mesh is null || decoupled || !whole) return new(mu, rule, null);
-        return FermiLevelPlacement.Window(ham, mesh, occ) is { } w
-            ? FermiLevelPlacement.InWindow(ham, occ, w.Lower, w.Upper)
-            : new(mu, rule, null);
+        // The solver's tetrahedron filling reports the window of no states; without it (a bare model) the mesh gives it.
+        var w = window is { } fw ? (fw.Width > 0 ? (fw.Lower, fw.Upper) : ((double, double)?)null) : FermiLevelPlacement.Window(ham, mesh, occ);
+        return w is { } open ? FermiLevelPlacement.InWindow(ham, occ, open.Item1, open.Item2) : new(mu, rule, null);
     }
 }
