@@ -48,7 +48,7 @@ public sealed class SlabBands
     }
 
     /// <summary>Per-thread slab eigen-decomposition buffers.</summary>
-    internal sealed class Worker(Slab slab)
+    public sealed class Worker(Slab slab)
     {
         private readonly IHermitianEigensolver _solver = Eigensolvers.Create(slab.Size);
         private readonly Complex[] _h = new Complex[slab.Size * slab.Size];
@@ -56,6 +56,7 @@ public sealed class SlabBands
         public double[] Values { get; } = new double[slab.Size];
         public Complex[] Vectors { get; } = new Complex[slab.Size * slab.Size];
 
+        /// <summary>Eigenvalues (ascending) and, unless <paramref name="vectors"/> is false, eigenvectors as columns.</summary>
         public void Solve(Vec3 kPar, bool vectors = true)
         {
             slab.Assemble(kPar, _h, _buffers);

@@ -33,7 +33,9 @@ public static class SurfaceStateCounting
     /// <summary>
     /// Walks the closed loop (the last point joins the first) and counts top-surface states crossing
     /// <paramref name="energy"/>: states within <paramref name="window"/> of it are tracked; a crossing is a step where
-    /// the top states below E drop by m and those above rise by m (up) or the reverse (down).
+    /// the top states below E drop by one and those above rise by one (up) or the reverse (down); a step with any
+    /// other change of both counts is bisected. Choose the window inside the projected bulk gap along the loop, where
+    /// the surface states are well localized.
     /// </summary>
     public static LoopCrossings CountAlongLoop(Slab slab, IReadOnlyList<Vec3> loop, double energy, double window, int faceDepth)
     {
@@ -42,12 +44,18 @@ public static class SurfaceStateCounting
         {
             worker.Solve(k);
             int below = 0, above = 0;
-            for (int m = 0; m < slab.Size; m++)
+            // Levels degenerate within the tolerance mix the faces (top and bottom states meeting at one k): count
+            // the face weight of the cluster, floor(sum + 1 - threshold) states, so one state needs the threshold.
+            for (int m = 0; m < slab.Size;)
             {
-                double e = worker.Values[m];
-                if (Math.Abs(e - energy) > window) continue;
-                if (slab.FaceWeights(worker.Vectors, m, faceDepth).Top < FaceThreshold) continue;
-                if (e < energy) below++; else above++;
+                int end = m + 1;
+                while (end < slab.Size && worker.Values[end] - worker.Values[end - 1] <= KramersTolerance * window) end++;
+                double e = 0.5 * (worker.Values[m] + worker.Values[end - 1]), top = 0;
+                if (Math.Abs(e - energy) <= window)
+                    for (int i = m; i < end; i++) top += slab.FaceWeights(worker.Vectors, i, faceDepth).Top;
+                int count = (int)Math.Floor(top + 1 - FaceThreshold);
+                if (e < energy) below += count; else above += count;
+                m = end;
             }
             return (below, above);
         }
@@ -55,9 +63,16 @@ public static class SurfaceStateCounting
         void Step(Vec3 a, (int, int) ca, Vec3 b, (int, int) cb, int depth)
         {
             int dBelow = cb.Item1 - ca.Item1, dAbove = cb.Item2 - ca.Item2;
-            if (dBelow == 0 && dAbove == 0) return;
-            if (dBelow == -dAbove) { if (dAbove > 0) up += dAbove; else down -= dAbove; return; }
-            if (depth >= MaxSubdivisions) { ambiguous++; return; }
+            // One state passing E: below and above change oppositely by one. A change of only one side is a state
+            // entering or leaving the window (or its face weight crossing the threshold): not a crossing.
+            if (dBelow == 0 || dAbove == 0) return;
+            if (Math.Abs(dBelow) == 1 && dBelow == -dAbove) { if (dAbove > 0) up++; else down++; return; }
+            if (depth >= MaxSubdivisions)
+            {
+                ambiguous++;
+                if (Math.Sign(dBelow) != Math.Sign(dAbove)) { int m = Math.Min(Math.Abs(dBelow), Math.Abs(dAbove)); if (dAbove > 0) up += m; else down += m; }
+                return;
+            }
             var mid = 0.5 * (a + b);
             var cm = Census(mid);
             Step(a, ca, mid, cm, depth + 1);
@@ -76,13 +91,14 @@ public static class SurfaceStateCounting
     }
 
     /// <summary>A circle of <paramref name="points"/> in-plane points around <paramref name="centre"/>, counter-clockwise
-    /// seen from outside the top face (from +normal).</summary>
+    /// seen from outside the top face (from +normal), starting half a step past the e1 axis so that points avoid the
+    /// symmetric directions where top and bottom states often meet.</summary>
     public static Vec3[] Circle(SurfaceZone zone, Vec3 centre, double radius, int points)
     {
         var loop = new Vec3[points];
         for (int i = 0; i < points; i++)
         {
-            double a = 2 * Math.PI * i / points;
+            double a = 2 * Math.PI * (i + 0.5) / points;
             loop[i] = centre + radius * Math.Cos(a) * zone.E1 + radius * Math.Sin(a) * zone.E2;
         }
         return loop;
