@@ -18,9 +18,10 @@ public static class LowEnergyScale
     public const int Mesh = 8;
     /// <summary>Correlated-orbital weight from which a state counts as heavy.</summary>
     public const double HeavyWeight = 0.5;
-    /// <summary>Default broadening eta as a fraction of the scale: for the shipped Weyl-Kondo model (scale about 70 meV)
-    /// eta is about 0.14 meV, below its Kondo gap (1.3 meV at zero inversion breaking) and matched to the heavy cones.</summary>
-    public const double DefaultEtaFraction = 0.002;
+    /// <summary>Default broadening eta as a fraction of the scale. For the shipped Weyl-Kondo model (scale about 65 meV)
+    /// eta is about 0.026 meV: below its node offsets from mu (0.04 meV) and Kondo gap (0.7-1.3 meV), so Fermi arcs
+    /// separate from the nearly flat heavy surface bands; 5 times more already paints whole regions of the zone.</summary>
+    public const double DefaultEtaFraction = 4e-4;
     /// <summary>Fallback fraction of the total bandwidth when the bands next to mu are flat.</summary>
     public const double FlatBandFallback = 1e-3;
 

@@ -6,7 +6,8 @@ namespace Meanfield.Analysis.Surfaces;
 
 /// <summary>
 /// Eigenvalues of a <see cref="Slab"/> along a surface-zone path with each state's weight on the top and the bottom
-/// <see cref="FaceDepth"/> principal layers (0..1 each; a bulk state has about FaceDepth / Layers on each face).
+/// <see cref="FaceDepth"/> principal layers (0..1 each; a bulk state has about FaceDepth / Layers on each face);
+/// degenerate levels share their mean weights.
 /// </summary>
 public sealed class SlabBands
 {
@@ -42,9 +43,32 @@ public sealed class SlabBands
             w.Values.AsSpan().CopyTo(r._e.AsSpan(k * n, n));
             for (int m = 0; m < n; m++)
                 (r._top[k * n + m], r._bottom[k * n + m]) = slab.FaceWeights(w.Vectors, m, depth);
+            AverageDegenerate(w.Values, r._top.AsSpan(k * n, n), r._bottom.AsSpan(k * n, n));
             return w;
         }, _ => { });
         return r;
+    }
+
+    /// <summary>Levels within this fraction of the largest |E| at a k-point are one degenerate level.</summary>
+    public const double DegeneracyTolerance = 1e-9;
+
+    // Eigenvectors of a degenerate level are any basis of its subspace, so single-state face weights are arbitrary
+    // there (top and bottom states of a symmetric slab mix): give every state the level's mean weights.
+    private static void AverageDegenerate(ReadOnlySpan<double> e, Span<double> top, Span<double> bottom)
+    {
+        double scale = Math.Max(Math.Abs(e[0]), Math.Abs(e[^1])), tol = DegeneracyTolerance * Math.Max(scale, 1e-300);
+        for (int m = 0; m < e.Length;)
+        {
+            int end = m + 1;
+            while (end < e.Length && e[end] - e[end - 1] <= tol) end++;
+            if (end - m > 1)
+            {
+                double t = 0, b = 0;
+                for (int i = m; i < end; i++) { t += top[i]; b += bottom[i]; }
+                for (int i = m; i < end; i++) { top[i] = t / (end - m); bottom[i] = b / (end - m); }
+            }
+            m = end;
+        }
     }
 
     /// <summary>Per-thread slab eigen-decomposition buffers.</summary>
