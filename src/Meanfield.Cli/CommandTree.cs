@@ -15,6 +15,7 @@ public static class CommandTree
         DosCommand.Build(),
         NodesCommand.Build(),
         CurvatureCommand.Build(),
+        FacetCommand.Build(),
         HeatCommand.Build(),
         KondoScaleCommand.Build(),
         ExportCommand.Build(),
