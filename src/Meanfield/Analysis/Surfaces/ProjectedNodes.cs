@@ -25,7 +25,10 @@ public static class ProjectedNodes
         if (Math.Abs(ne - occ) > 1e-9 || occ < 1 || occ >= source.Size)
             return ([], $"no node search: {ne:G6} electrons per cell do not fill whole bands");
         var result = NodeSearch.Find(source, occ, mu, new NodeSearchOptions { Mesh = searchMesh });
-        return (Project(zone, result.Nodes.Select(n => (n.Cartesian, n.Chirality))), null);
+        // An undetermined chirality is drawn as 0 and said so: no charge is invented for it.
+        int undetermined = result.Nodes.Count(n => n.Chirality is null && n.SphereRadius > 0);
+        return (Project(zone, result.Nodes.Select(n => (n.Cartesian, n.Chirality ?? 0))),
+                undetermined > 0 ? $"{undetermined} node chiralities undetermined (drawn as 0)" : null);
     }
 
     /// <summary>Projects bulk nodes (Cartesian k, chirality) and merges those that land on one surface point.</summary>
