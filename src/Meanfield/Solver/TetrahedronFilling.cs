@@ -25,7 +25,9 @@ namespace Meanfield.Solver;
 /// What it needs from the state table: the energy of every full-mesh k-point and band, E[k * Bands + n], k in
 /// <see cref="KMesh.Index"/> order, bands ascending at each k. Nothing is stored per tetrahedron: cells are walked
 /// with their corner indices computed on the fly, and cells whose 8 (2D: 4) corners lie on one side of mu are counted
-/// whole. Memory: one weight per state. One instance serves one iteration: <see cref="Solve"/> is not re-entrant.
+/// whole. Memory: one weight per state, plus the lowest and highest corner energy of every cell for the bands that
+/// can hold mu (one pass per solve; the Newton passes then read two numbers per cell and gather corners only where a
+/// cell straddles mu). One instance serves one iteration: <see cref="Solve"/> is not re-entrant.
 /// </summary>
 public sealed class TetrahedronFilling
 {
@@ -49,6 +51,8 @@ public sealed class TetrahedronFilling
     private double _scale, _flat;
     private readonly List<double> _flatLevels = [];
     private bool _pinned;
+    private double[] _cellLo = [], _cellHi = [];
+    private int _rangeFirst, _rangeBands;
 
     private readonly int _n1, _n2, _n3, _cellCorners, _perCell, _vertices;
     private readonly int[] _pattern;
@@ -154,7 +158,7 @@ public sealed class TetrahedronFilling
     {
         double tolerance = CountTolerance * Math.Max(1.0, electrons);
         double mu = hint is { } h && h > lo && h < hi ? h : 0.5 * (lo + hi);
-        CollectFlatLevels(energies, lo, hi);
+        CellRanges(energies, lo, hi);
         for (int it = 0; it < MaxSteps; it++)
         {
             var (below, flat, dn) = Count(energies, mu);
@@ -184,31 +188,45 @@ public sealed class TetrahedronFilling
     }
 
     /// <summary>
-    /// Energies of flat cells (all corners within the flat tolerance) of the bands that can hold mu in [lo, hi]: the
-    /// cells centred on symmetric points of a shifted mesh. One pass of corner reads, no simplex work.
+    /// One pass per solve over the cells of the bands that can hold mu in [lo, hi]: the lowest and highest corner
+    /// energy of every cell and band (2 doubles per cell and band, so the Newton passes skip the cells away from mu
+    /// with two reads), and the energies of flat cells (all corners within the flat tolerance: the cells centred on
+    /// symmetric points of a shifted mesh, or a dispersionless band).
     /// </summary>
-    private void CollectFlatLevels(double[] energies, double lo, double hi)
+    private void CellRanges(double[] energies, double lo, double hi)
     {
-        _flatLevels.Clear();
-        var (_, first, _) = Active(lo);
-        var (_, _, last) = Active(hi);
-        Span<int> corner = stackalloc int[8];
-        Span<double> cell = stackalloc double[8];
-        for (int i1 = 0; i1 < _n1; i1++)
-            for (int i2 = 0; i2 < _n2; i2++)
-                for (int i3 = 0; i3 < _n3; i3++)
-                {
-                    CellCorners(i1, i2, i3, corner);
-                    for (int n = first; n < last; n++)
+        _rangeFirst = Active(lo).First;
+        _rangeBands = Math.Max(1, Active(hi).Last - _rangeFirst);
+        int size = Mesh.Count * _rangeBands;
+        if (_cellLo.Length < size) { _cellLo = new double[size]; _cellHi = new double[size]; }
+        int chunks = Chunks(1);
+        Parallel.For(0, chunks, c =>
+        {
+            Span<int> corner = stackalloc int[8];
+            Span<double> cell = stackalloc double[8];
+            for (int i1 = _n1 * c / chunks; i1 < _n1 * (c + 1) / chunks; i1++)
+                for (int i2 = 0; i2 < _n2; i2++)
+                    for (int i3 = 0; i3 < _n3; i3++)
                     {
-                        var (a, b) = Gather(energies, corner, n, cell);
-                        if (b - a > _flat || b < lo || a > hi) continue;
-                        double level = 0.5 * (a + b);
-                        bool known = false;
-                        foreach (var l in _flatLevels) known |= Math.Abs(l - level) <= _flat;
-                        if (!known) _flatLevels.Add(level);
+                        int index = (i1 * _n2 + i2) * _n3 + i3;
+                        CellCorners(i1, i2, i3, corner);
+                        for (int b = 0; b < _rangeBands; b++)
+                        {
+                            var (a, z) = Gather(energies, corner, _rangeFirst + b, cell);
+                            _cellLo[index * _rangeBands + b] = a; _cellHi[index * _rangeBands + b] = z;
+                        }
                     }
-                }
+        });
+        _flatLevels.Clear();
+        for (int i = 0; i < size; i++)
+        {
+            double a = _cellLo[i], z = _cellHi[i];
+            if (z - a > _flat || z < lo || a > hi) continue;
+            double level = 0.5 * (a + z);
+            bool known = false;
+            foreach (var l in _flatLevels) known |= Math.Abs(l - level) <= _flat;
+            if (!known) _flatLevels.Add(level);
+        }
     }
 
     /// <summary>Bands wholly below mu and the [first, last) range of bands that straddle it.</summary>
@@ -251,17 +269,19 @@ public sealed class TetrahedronFilling
         Span<int> corner = stackalloc int[8];
         Span<double> cell = stackalloc double[8];
         Span<double> e = stackalloc double[4];
-        double fraction = 0, flat = 0, dos = 0;
+        double fraction = 0, flat = 0, dos = 0, below = mu - _flat, above = mu + _flat;
         for (int i1 = i1Start; i1 < i1End; i1++)
             for (int i2 = 0; i2 < _n2; i2++)
                 for (int i3 = 0; i3 < _n3; i3++)
                 {
-                    CellCorners(i1, i2, i3, corner);
+                    int range = ((i1 * _n2 + i2) * _n3 + i3) * _rangeBands - _rangeFirst;
+                    bool corners = false;
                     for (int n = first; n < last; n++)
                     {
-                        var (lo, hi) = Gather(energies, corner, n, cell);
-                        if (hi < mu - _flat) { fraction += _perCell; continue; }
-                        if (lo > mu + _flat) continue;
+                        if (_cellHi[range + n] < below) { fraction += _perCell; continue; }
+                        if (_cellLo[range + n] > above) continue;
+                        if (!corners) { CellCorners(i1, i2, i3, corner); corners = true; }
+                        Gather(energies, corner, n, cell);
                         for (int s = 0; s < _perCell; s++)
                         {
                             for (int v = 0; v < _vertices; v++) e[v] = cell[_pattern[s * _vertices + v]];
@@ -280,16 +300,22 @@ public sealed class TetrahedronFilling
     }
 
     /// <summary>
-    /// Weights at mu, with the flat simplices at mu filled to <paramref name="flatFraction"/>. Slabs of cells write to
-    /// the k-points of their own and the next plane, so even slabs run in parallel, then odd ones (no two running slabs
-    /// share a plane, nothing is stored per thread). Returns N(mu), the sum of the weights.
+    /// Weights at mu, with the flat simplices at mu filled to <paramref name="flatFraction"/>. Every state starts at
+    /// 1/N_k if E &lt; mu, else 0 (exact for k-points whose cells all lie on one side of mu); the cells that straddle
+    /// mu then replace that share of their corners by their simplex weights. Those cells write to the k-points of
+    /// their own and the next plane, so even slabs run in parallel, then odd ones (no two running slabs share a plane,
+    /// nothing is stored per thread). Returns N(mu), the sum of the weights.
     /// </summary>
     private double FillWeights(double[] energies, double mu, double flatFraction)
     {
         _pinned = flatFraction > 0 && flatFraction < 1;
         var (_, first, last) = Active(mu);
         for (int k = 0; k < Mesh.Count; k++)
-            for (int n = 0; n < Bands; n++) _weights[k * Bands + n] = n < first ? _stateWeight : 0;
+            for (int n = 0; n < Bands; n++)
+            {
+                int s = k * Bands + n;
+                _weights[s] = n < first ? _stateWeight : n < last && energies[s] < mu ? _stateWeight : 0;
+            }
         if (first < last)
         {
             int chunks = Chunks(2);
@@ -314,21 +340,21 @@ public sealed class TetrahedronFilling
         Span<double> e = stackalloc double[4];
         Span<double> w = stackalloc double[4];
         Span<int> order = stackalloc int[4];
-        double share = _simplexWeight / _vertices;
+        double share = _simplexWeight / _vertices, below = mu - _flat, above = mu + _flat;
         for (int i1 = i1Start; i1 < i1End; i1++)
             for (int i2 = 0; i2 < _n2; i2++)
                 for (int i3 = 0; i3 < _n3; i3++)
                 {
-                    CellCorners(i1, i2, i3, corner);
+                    int range = ((i1 * _n2 + i2) * _n3 + i3) * _rangeBands - _rangeFirst;
+                    bool corners = false;
                     for (int n = first; n < last; n++)
                     {
-                        var (lo, hi) = Gather(energies, corner, n, cell);
-                        if (hi < mu - _flat)
-                        {
-                            for (int c = 0; c < _cellCorners; c++) _weights[corner[c] * Bands + n] += _multiplicity[c] * share;
-                            continue;
-                        }
-                        if (lo > mu + _flat) continue;
+                        if (_cellHi[range + n] < below || _cellLo[range + n] > above) continue;
+                        if (!corners) { CellCorners(i1, i2, i3, corner); corners = true; }
+                        Gather(energies, corner, n, cell);
+                        // Undo the starting share of this cell's occupied corners.
+                        for (int c = 0; c < _cellCorners; c++)
+                            if (cell[c] < mu) _weights[corner[c] * Bands + n] -= _multiplicity[c] * share;
                         for (int s = 0; s < _perCell; s++)
                         {
                             for (int v = 0; v < _vertices; v++) { order[v] = _pattern[s * _vertices + v]; e[v] = cell[order[v]]; }

@@ -4,8 +4,8 @@ using Meanfield.Lattices;
 namespace Meanfield.Analysis.Dos;
 
 /// <summary>
-/// Total, integrated and projected DOS of a Bloch source on a Monkhorst-Pack mesh (Gamma-centred or shifted) by the linear tetrahedron method
-/// (triangles for 2D lattices) or Gaussian broadening. The mesh is diagonalised once at construction; eigenvalues and
+/// Total, integrated and projected DOS of a Bloch source on a Monkhorst-Pack mesh (Gamma-centred or shifted) by the
+/// linear tetrahedron method (triangles for 2D lattices) or Gaussian broadening. The mesh is diagonalised once at construction; eigenvalues and
 /// per-state projections are kept, eigenvectors are not.
 /// </summary>
 public sealed class TetrahedronDos
