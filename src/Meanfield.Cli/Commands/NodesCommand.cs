@@ -31,6 +31,7 @@ public static class NodesCommand
             if (!outPath.EndsWith(".json", StringComparison.OrdinalIgnoreCase)) throw new UserInputException($"--out {outPath}: use a .json file name");
             int sm = CheckSearchMesh(parse.GetValue(searchMesh));
             var inputPath = parse.GetValue(solution.Input)!;
+            CommonOptions.RefuseOverwrite(inputPath, [outPath]);
             var src = solution.Resolve(parse, o);
             if (!IsWholeFilling(src.Model))
             {

@@ -72,6 +72,7 @@ public static class ScanCommand
         var grid = scan.ToGrid();
         var solver = SaddlePointPointSolver.For(scan);
         var target = shard.OutputPath(outPath);
+        Output.OutputGuard.Check(target, [scanPath, first.ModelPath]);
         var outputFile = new ScanOutput(target, scan.Provenance(spec.Header.Unit.Symbol()));
         var options = new ScanRunOptions { Shard = shard, Resume = resume, DegreeOfParallelism = jobs };
         int points = grid.Shard(shard).Count;
@@ -138,6 +139,7 @@ public static class ScanCommand
                     else throw new UserInputException($"{g}: no such file or directory");
                 }
                 if (files.Count == 0) throw new UserInputException($"no shard files (*.shard-*-of-*.parquet) in {string.Join(", ", given)}");
+                Output.OutputGuard.Check(parse.GetValue(output)!, files);
                 var report = await ScanMerge.MergeAsync(files, parse.GetValue(output)!, parse.GetValue(allow), ct);
                 (report.Complete ? o : e).WriteLine(report.ToString());
                 if (!report.Written) return ExitCodes.NoAnswer;

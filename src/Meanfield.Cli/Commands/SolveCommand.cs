@@ -20,13 +20,14 @@ public static class SolveCommand
         {
             var o = parse.InvocationConfiguration.Output;
             var path = parse.GetValue(output)!;
+            OutputGuard.Check(path, [parse.GetValue(model)]);
             var bound = CommonOptions.LoadModel(parse.GetValue(model)!, CommonOptions.ParseSets(parse.GetValue(set)));
             var settings = CommonOptions.Settings(bound, parse.GetValue(temperature), parse.GetValue(mesh));
             var sp = new SaddlePointSolver(bound, settings).Solve();
             o.WriteLine(Summary.Solution(sp, bound));
             if (!sp.Converged)
             {
-                parse.InvocationConfiguration.Error.WriteLine($"error: not converged; {path} was not written");
+                parse.InvocationConfiguration.Error.WriteLine($"error: not converged; {OutputGuard.NotWrittenNote(path)}");
                 return ExitCodes.NotConverged;
             }
             var doc = SolutionDocument.From(sp, bound, settings);

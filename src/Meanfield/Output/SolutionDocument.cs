@@ -94,6 +94,18 @@ public sealed record SolutionDocument
         }
     }
 
+    /// <summary>The model path a solution file names, or null when the file cannot be read as JSON (no validation).</summary>
+    public static string? PeekModelPath(string path)
+    {
+        try
+        {
+            using var doc = JsonDocument.Parse(File.ReadAllBytes(path));
+            return doc.RootElement.ValueKind == JsonValueKind.Object && doc.RootElement.TryGetProperty("model_path", out var p)
+                   && p.ValueKind == JsonValueKind.String ? p.GetString() : null;
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException or JsonException) { return null; }
+    }
+
     /// <summary>Amplitudes for the model's shell groups, after checking the solution belongs to this model text.</summary>
     public MeanFieldAmplitudes AmplitudesFor(BoundModel model, string solutionPath)
     {
