@@ -19,10 +19,7 @@ public sealed record SolutionInput(BoundModel Model, IBlochSource Hamiltonian, d
             if (!File.Exists(input)) throw new UserInputException($"{input}: solution file not found");
             var doc = SolutionDocument.Load(input);
             if (!doc.Converged) throw new UserInputException($"{input}: the solution did not converge; it cannot be used");
-            var overrides = doc.Parameters.ToDictionary(p => p.Key, p => p.Value.ToString("R", System.Globalization.CultureInfo.InvariantCulture));
-            foreach (var kv in CommonOptions.ParseSets(sets)) overrides[kv.Key] = kv.Value;
-            if (!File.Exists(doc.ModelPath)) throw new UserInputException($"{input}: its model file '{doc.ModelPath}' is not found");
-            var model = CommonOptions.LoadModel(doc.ModelPath, overrides);
+            var model = doc.BindModel(input, CommonOptions.ParseSets(sets));
             var amp = doc.AmplitudesFor(model, input);
             return new(model, new RenormalizedHamiltonian(new BlochHamiltonian(model), amp), doc.Mu, null, input);
         }
