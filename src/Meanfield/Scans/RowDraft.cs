@@ -13,7 +13,7 @@ internal sealed class RowDraft(ScanSchema schema)
     public readonly double[] Nf = new double[schema.GroupNames.Count];
     public double? DirectGap, IndirectGap, DosFermiTotal, DosFermiCorrelated, MaxNodeOffset, Gamma, Beta;
     public int? NodeCount, NetChirality, AbsChirality;
-    public string? Phase;
+    public string? Phase, Error;
     public double[]? SolverState;
 
     public ScanRow Build()
@@ -28,7 +28,7 @@ internal sealed class RowDraft(ScanSchema schema)
             Parameters = parameters, DirectGap = DirectGap, IndirectGap = IndirectGap, DosFermiTotal = DosFermiTotal,
             DosFermiCorrelated = DosFermiCorrelated, NodeCount = NodeCount, MaxNodeOffset = MaxNodeOffset,
             NetChirality = NetChirality, AbsChirality = AbsChirality, GammaMilliJoulePerMolK2 = Gamma,
-            BetaMilliJoulePerMolK4 = Beta, Phase = Phase, SolverState = SolverState,
+            BetaMilliJoulePerMolK4 = Beta, Phase = Phase, Error = Error, SolverState = SolverState,
         };
         return new ScanRow(PointId, Shard, Axes, parameters, TemperatureK, result, WallSeconds, WarmStarted);
     }

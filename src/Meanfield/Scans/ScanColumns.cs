@@ -47,6 +47,7 @@ internal static class ScanColumns
         c.Add(new NullableColumn<double>("gamma_mJ_per_mol_K2", "mJ mol^-1 K^-2", r => r.Result.GammaMilliJoulePerMolK2, (d, v) => d.Gamma = v));
         c.Add(new NullableColumn<double>("beta_mJ_per_mol_K4", "mJ mol^-1 K^-4", r => r.Result.BetaMilliJoulePerMolK4, (d, v) => d.Beta = v));
         c.Add(new TextColumn("phase", "", r => r.Result.Phase, (d, v) => d.Phase = v));
+        if (s.IncludeErrorColumn) c.Add(new TextColumn("error", "", r => r.Result.Error, (d, v) => d.Error = v));
         c.Add(new ValueColumn<double>("wall_seconds", "s", r => r.WallSeconds, (d, v) => d.WallSeconds = v));
         c.Add(new ValueColumn<bool>("warm_started", "", r => r.WarmStarted, (d, v) => d.WarmStarted = v));
         if (s.IncludeSolverState) c.Add(new SolverStateColumn());

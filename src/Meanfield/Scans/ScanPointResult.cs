@@ -35,6 +35,12 @@ public sealed record ScanPointResult
     public double? BetaMilliJoulePerMolK4 { get; init; }
     /// <summary>Phase label (decoupled, Kondo insulator, Weyl semimetal, ...); null when not classified.</summary>
     public string? Phase { get; init; }
+    /// <summary>
+    /// Why the point has no solution when its solve threw (bad value at this point, a tie that divides by zero, a
+    /// numerical failure): the message, naming the scan file, line and point where it can. Null for a point that was
+    /// solved (converged or not). A point with an error always has <see cref="Converged"/> = false.
+    /// </summary>
+    public string? Error { get; init; }
     /// <summary>Solver-private state for warm starts (for example r, lambda, mu); kept in chunk files for resume.</summary>
     public double[]? SolverState { get; init; }
 }
