@@ -75,6 +75,19 @@ public sealed class ScanOutput(string path, ScanProvenance provenance)
         return have.Count == table.Rows.Count && have.SetEquals(ids);
     }
 
+    /// <summary>
+    /// Deletes temporary siblings (".NAME.*.tmp") that a killed run left beside the final file and the chunks; they are
+    /// never renamed into place, so nothing of value is lost.
+    /// </summary>
+    internal void RemoveStaleTemporaries()
+    {
+        var dir = System.IO.Path.GetDirectoryName(Path);
+        if (dir is not null && Directory.Exists(dir))
+            foreach (var f in Directory.GetFiles(dir, $".{System.IO.Path.GetFileName(Path)}.*.tmp")) ScanParquet.TryDelete(f);
+        if (Directory.Exists(PartsDirectory))
+            foreach (var f in Directory.GetFiles(PartsDirectory, ".chunk-*.tmp")) ScanParquet.TryDelete(f);
+    }
+
     /// <summary>Removes the chunk directory (after a finished run).</summary>
     internal void RemoveChunks()
     {

@@ -14,6 +14,7 @@ public static class ScanRunner
     {
         var clock = Stopwatch.StartNew();
         var ids = grid.Shard(options.Shard);
+        output.RemoveStaleTemporaries();
         if (output.HasChunks && await output.IsFinishedAsync(ids, options.Shard, ct))
         {
             // Stopped between the final rename and the removal of the chunks: the result is complete, the chunks are left over.
