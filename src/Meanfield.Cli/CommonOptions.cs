@@ -42,6 +42,17 @@ public static class CommonOptions
         return result;
     }
 
+    /// <summary>
+    /// Refuses <paramref name="outputs"/> that are folders, lie in missing folders or resolve to an input (INPUT, the
+    /// model a solution file names, and <paramref name="others"/>): exit 2 before anything is computed or touched.
+    /// </summary>
+    public static void RefuseOverwrite(string input, IReadOnlyList<string> outputs, params string?[] others)
+    {
+        var inputs = new List<string?>(others) { input };
+        if (input.EndsWith(".json", StringComparison.OrdinalIgnoreCase)) inputs.Add(Output.SolutionDocument.PeekModelPath(input));
+        Output.OutputGuard.Check(outputs, inputs);
+    }
+
     public static BoundModel LoadModel(string path, IReadOnlyDictionary<string, string>? overrides)
     {
         if (!File.Exists(path)) throw new UserInputException($"{path}: model file not found");
@@ -62,17 +73,22 @@ public static class CommonOptions
         if (suffix.Length == 0) inUnit = value;
         else if (EnergyUnits.TryParse(suffix, out var given)) inUnit = value * given.Joules() / unit.Joules();
         else throw new UserInputException($"{option} '{text}': unknown unit '{suffix}' (use K, meV or eV)");
-        if (!(inUnit >= 0)) throw new UserInputException($"{option} '{text}': temperature must be >= 0");
+        if (!(inUnit >= 0) || !double.IsFinite(inUnit)) throw new UserInputException($"{option} '{text}': temperature must be a finite number >= 0");
+        if (inUnit > PhysicalRange.MaxEnergy(unit))
+            throw new UserInputException($"{option} '{text}': beyond the physical range (at most {PhysicalRange.MaxEnergyText(unit)})");
         return inUnit;
     }
 
     /// <summary>Solver settings: command-line values first, then the model's [solver] table, then defaults.</summary>
-    public static SolverSettings Settings(BoundModel model, string? temperature, int? mesh)
+    /// <param name="temperatureOption">The option that gave <paramref name="temperature"/>, for messages.</param>
+    public static SolverSettings Settings(BoundModel model, string? temperature, int? mesh, string temperatureOption = "--temperature")
     {
+        if (mesh is < PhysicalRange.MinMesh or > PhysicalRange.MaxMesh)
+            throw new UserInputException($"--mesh {mesh}: use {PhysicalRange.MinMesh}..{PhysicalRange.MaxMesh} divisions");
         var hints = model.Solver;
         var settings = new SolverSettings
         {
-            Temperature = temperature is null ? hints?.Temperature ?? 0 : ParseTemperature(temperature, model.Unit),
+            Temperature = temperature is null ? hints?.Temperature ?? 0 : ParseTemperature(temperature, model.Unit, temperatureOption),
             Mesh = mesh ?? hints?.Mesh ?? 16,
             Shifted = hints?.Shifted ?? true,
             Tolerance = hints?.Tolerance ?? 1e-10,

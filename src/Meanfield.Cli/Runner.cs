@@ -13,7 +13,17 @@ public static class Runner
         try
         {
             var config = new InvocationConfiguration { Output = output, Error = error, EnableDefaultExceptionHandler = false };
-            return root.Parse(args).Invoke(config);
+            var parse = root.Parse(args);
+            if (parse.Errors.Count > 0)
+            {
+                foreach (var e in parse.Errors) error.WriteLine($"error: {Readable(e.Message)}");
+                var names = new List<string>();
+                for (var c = parse.CommandResult; c is not null; c = c.Parent as System.CommandLine.Parsing.CommandResult)
+                    if (c.Command is not RootCommand) names.Insert(0, c.Command.Name);
+                error.WriteLine($"see `meanfield {string.Join(" ", names)}{(names.Count > 0 ? " " : "")}--help` for the options");
+                return ExitCodes.Usage;
+            }
+            return parse.Invoke(config);
         }
         catch (ModelError e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
         catch (UserInputException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
@@ -30,4 +40,16 @@ public static class Runner
             return ExitCodes.Internal;
         }
     }
+
+    /// <summary>A parse error with .NET type names ("System.Nullable`1[System.Int32]") said in words.</summary>
+    internal static string Readable(string message) =>
+        System.Text.RegularExpressions.Regex.Replace(message,
+            @" as expected type '(?:System\.Nullable`1\[)?System\.(\w+)\]?'", m => ": expected " + m.Groups[1].Value switch
+            {
+                "Int32" or "Int64" => "a whole number",
+                "Double" or "Single" or "Decimal" => "a number",
+                "Boolean" => "true or false",
+                "String" => "text",
+                var other => other,
+            });
 }

@@ -26,6 +26,7 @@ public static class BandsCommand
             if (ext is not (".csv" or ".parquet")) throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name");
             int count = parse.GetValue(points);
             if (count < 2) throw new UserInputException($"--points {count}: need at least 2");
+            CommonOptions.RefuseOverwrite(parse.GetValue(solution.Input)!, [outPath, Path.ChangeExtension(outPath, ".png")]);
             var src = solution.Resolve(parse, o);
             if (src.Model.IsMomentumFree) throw new UserInputException($"{src.Model.SourcePath}: a momentum-free lattice has no bands along a path; use `dos`");
             var spec = parse.GetValue(path)!;

@@ -32,6 +32,7 @@ public static class CurvatureCommand
             var err = parse.InvocationConfiguration.Error;
             var outPath = parse.GetValue(output)!;
             if (!outPath.EndsWith(".csv", StringComparison.OrdinalIgnoreCase)) throw new UserInputException($"--out {outPath}: use a .csv file name");
+            CommonOptions.RefuseOverwrite(parse.GetValue(solution.Input)!, [outPath, Path.ChangeExtension(outPath, ".png")]);
             var (origin, span1, span2) = ParsePlane(parse.GetValue(plane)!);
             int n = parse.GetValue(grid);
             if (n < 2 || n > 1000) throw new UserInputException($"--grid {n}: use 2..1000 plaquettes per span");

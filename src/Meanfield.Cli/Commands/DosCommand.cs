@@ -31,6 +31,7 @@ public static class DosCommand
             var outPath = parse.GetValue(output)!;
             var ext = Path.GetExtension(outPath).ToLowerInvariant();
             if (ext is not (".csv" or ".parquet")) throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name");
+            CommonOptions.RefuseOverwrite(parse.GetValue(input)!, [outPath, Path.ChangeExtension(outPath, ".png")]);
             int n = parse.GetValue(mesh);
             if (n < 2 || n > 200) throw new UserInputException($"--mesh {n}: use 2..200 divisions");
             var win = parse.GetValue(window) is { Length: 2 } given ? given : null;

@@ -20,6 +20,7 @@ public static class ExportCommand
         {
             var path = parse.GetValue(input)!;
             if (!path.EndsWith(".json", StringComparison.OrdinalIgnoreCase)) throw new UserInputException($"{path}: export needs a solution file (.json) from `solve`");
+            CommonOptions.RefuseOverwrite(path, [parse.GetValue(output)!]);
             var src = Solutions.Solution.Load(path);
             var amp = src.Amplitudes!;
             var renormalized = RenormalizedModel.Build(src.Model, amp);

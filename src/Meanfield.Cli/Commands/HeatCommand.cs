@@ -50,6 +50,7 @@ public static class HeatCommand
                 parse.GetValue(log), parse.GetValue(window), parse.GetValue(measured), parse.GetValue(debye), parse.GetValue(atoms),
                 parse.GetValue(reference), parse.GetValue(full), parse.GetValue(mfPoints), parse.GetValue(dosMesh));
             req.Validate();
+            CommonOptions.RefuseOverwrite(parse.GetValue(input)!, [req.Out, Path.ChangeExtension(req.Out, ".residuals.csv"), Path.ChangeExtension(req.Out, ".png"), Path.ChangeExtension(req.Out, ".loglog.png")], req.Measured, req.Reference);
             var measuredData = LoadMeasured(req);
             var src = SolutionOptions.Open(parse.GetValue(input)!, parse.GetValue(set), parse.GetValue(temperature), parse.GetValue(mesh), false, o);
             return Run(req, src, measuredData, parse.GetValue(temperature), parse.GetValue(mesh), o, parse.InvocationConfiguration.Error);

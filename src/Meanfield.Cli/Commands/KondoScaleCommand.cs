@@ -19,7 +19,7 @@ public static class KondoScaleCommand
         {
             var o = parse.InvocationConfiguration.Output;
             var bound = CommonOptions.LoadModel(parse.GetValue(model)!, CommonOptions.ParseSets(parse.GetValue(set)));
-            var baseSettings = CommonOptions.Settings(bound, parse.GetValue(start), parse.GetValue(mesh));
+            var baseSettings = CommonOptions.Settings(bound, parse.GetValue(start), parse.GetValue(mesh), "--from");
             double t0 = baseSettings.Temperature > 0 ? baseSettings.Temperature : 1e-3;
             var result = KondoTemperature.FindFromStability(
                 t => new SaddlePointSolver(bound, baseSettings with { Temperature = t }).DecoupledStability()?.Min() ?? double.NaN,

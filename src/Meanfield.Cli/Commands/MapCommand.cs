@@ -25,6 +25,7 @@ public static class MapCommand
             if (!File.Exists(path)) throw new UserInputException($"{path}: scan result not found");
             var dir = Path.GetDirectoryName(Path.GetFullPath(png))!;
             if (!Directory.Exists(dir)) throw new UserInputException($"--out {png}: folder {dir} does not exist");
+            Output.OutputGuard.Check(png, [path]);
             try
             {
                 PhaseMap.Save(path, parse.GetValue(x)!, parse.GetValue(y)!, parse.GetValue(color)!, png,

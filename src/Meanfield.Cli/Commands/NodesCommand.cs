@@ -25,6 +25,7 @@ public static class NodesCommand
             var outPath = parse.GetValue(output)!;
             if (!outPath.EndsWith(".json", StringComparison.OrdinalIgnoreCase)) throw new UserInputException($"--out {outPath}: use a .json file name");
             int sm = CheckSearchMesh(parse.GetValue(searchMesh));
+            CommonOptions.RefuseOverwrite(parse.GetValue(solution.Input)!, [outPath]);
             var src = solution.Resolve(parse, o);
             OccupiedBands(src);
             var digest = SpectrumSummary.Compute(src, new SpectrumRequest { SearchMesh = sm });

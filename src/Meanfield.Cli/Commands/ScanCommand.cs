@@ -36,9 +36,10 @@ public static class ScanCommand
         var resume = new Option<bool>("--resume") { Description = "Continue an interrupted run from its chunk files (OUT.parts/)" };
         var shard = new Option<string?>("--shard") { Description = "Compute shard I of N (0 <= I < N), e.g. 3/16; default: from SLURM_ARRAY_TASK_* inside a job array, else the whole grid" };
         var jobs = new Option<int>("--jobs", "-j") { Description = "Snake segments solved at once (default 1: the solver already uses every core over k)", DefaultValueFactory = _ => 1 };
+        var flush = new Option<int>("--checkpoint-every") { Description = "Write finished points to disk after this many (default 16; also every 30 s)", DefaultValueFactory = _ => 16 };
         var command = new Command("scan", "Solve the mean field on every point of a scan grid and write one Parquet row per point")
         {
-            scanFile, output, resume, shard, jobs, BuildMerge(),
+            scanFile, output, resume, shard, jobs, flush, BuildMerge(),
         };
         command.SetAction(async (parse, ct) =>
         {
@@ -48,7 +49,7 @@ public static class ScanCommand
             try
             {
                 return await RunAsync(parse.GetValue(scanFile)!, parse.GetValue(output)!, parse.GetValue(resume),
-                                      parse.GetValue(shard), parse.GetValue(jobs), context, o, linked.Token);
+                                      parse.GetValue(shard), parse.GetValue(jobs), parse.GetValue(flush), context, o, e, linked.Token);
             }
             catch (ScanError err) { e.WriteLine($"error: {err.Message}"); return ExitCodes.BadInput; }
             catch (OperationCanceledException) when (linked.IsCancellationRequested)
@@ -60,10 +61,11 @@ public static class ScanCommand
         return command;
     }
 
-    private static async Task<int> RunAsync(string scanPath, string outPath, bool resume, string? shardText, int jobs,
-                                            ScanCommandContext context, TextWriter o, CancellationToken ct)
+    private static async Task<int> RunAsync(string scanPath, string outPath, bool resume, string? shardText, int jobs, int flushEvery,
+                                            ScanCommandContext context, TextWriter o, TextWriter e, CancellationToken ct)
     {
         if (jobs < 1) throw new UserInputException($"--jobs {jobs}: need at least 1");
+        if (flushEvery < 1) throw new UserInputException($"--checkpoint-every {flushEvery}: need at least 1");
         var shard = shardText is not null ? ShardSpec.Parse(shardText) : ShardSpec.FromEnvironment(context.Environment()) ?? ShardSpec.Whole;
         if (!File.Exists(scanPath)) throw new UserInputException($"{scanPath}: scan file not found");
         var first = ScanFileReader.Load(scanPath);
@@ -72,8 +74,14 @@ public static class ScanCommand
         var grid = scan.ToGrid();
         var solver = SaddlePointPointSolver.For(scan);
         var target = shard.OutputPath(outPath);
+        Output.OutputGuard.Check(target, [scanPath, first.ModelPath]);
         var outputFile = new ScanOutput(target, scan.Provenance(spec.Header.Unit.Symbol()));
-        var options = new ScanRunOptions { Shard = shard, Resume = resume, DegreeOfParallelism = jobs };
+        var gate = new Lock();
+        var options = new ScanRunOptions
+        {
+            Shard = shard, Resume = resume, DegreeOfParallelism = jobs, FlushEveryPoints = flushEvery,
+            Notice = m => { lock (gate) e.WriteLine($"note: {m}"); },
+        };
         int points = grid.Shard(shard).Count;
         string part = shard.IsWhole ? "" : $" (shard {shard} of a {grid.Count}-point grid)";
         o.WriteLine($"scan {Path.GetFileName(scanPath)}: {points} points{part}, mesh {scan.Solver.Mesh}, model {Path.GetFileName(scan.ModelPath)} -> {target}");
@@ -113,6 +121,7 @@ public static class ScanCommand
         double warm = solved.Count == 0 ? 0 : solved.Count(r => r.WarmStarted) / (double)solved.Count;
         string resumed = s.Resumed > 0 ? $" ({s.Resumed} from an earlier run)" : "";
         string bad = s.NonConverged > 0 ? $"{s.NonConverged} NOT converged (kept, flagged converged = false)" : "0 not converged";
+        if (s.Failed > 0) bad += $", of which {s.Failed} failed with an error (see the error column)";
         return string.Create(CultureInfo.InvariantCulture,
             $"done: {s.Total} points{resumed}, {s.Total - s.NonConverged} converged, {bad}; wall {s.Elapsed.TotalSeconds:F1} s; mean iterations {meanIterations:F1}; warm-started {100 * warm:F0}%; wrote {s.OutputPath}");
     }
@@ -138,6 +147,7 @@ public static class ScanCommand
                     else throw new UserInputException($"{g}: no such file or directory");
                 }
                 if (files.Count == 0) throw new UserInputException($"no shard files (*.shard-*-of-*.parquet) in {string.Join(", ", given)}");
+                Output.OutputGuard.Check(parse.GetValue(output)!, files);
                 var report = await ScanMerge.MergeAsync(files, parse.GetValue(output)!, parse.GetValue(allow), ct);
                 (report.Complete ? o : e).WriteLine(report.ToString());
                 if (!report.Written) return ExitCodes.NoAnswer;

@@ -21,13 +21,14 @@ public static class SolveCommand
         {
             var o = parse.InvocationConfiguration.Output;
             var path = parse.GetValue(output)!;
+            OutputGuard.Check(path, [parse.GetValue(model)]);
             var bound = CommonOptions.LoadModel(parse.GetValue(model)!, CommonOptions.ParseSets(parse.GetValue(set)));
             var settings = CommonOptions.Settings(bound, parse.GetValue(temperature), parse.GetValue(mesh));
             var sp = new SaddlePointSolver(bound, settings).Solve();
             if (!sp.Converged)
             {
                 o.WriteLine(Summary.Solution(sp, bound, null, null));
-                parse.InvocationConfiguration.Error.WriteLine($"error: not converged; {path} was not written");
+                parse.InvocationConfiguration.Error.WriteLine($"error: not converged; {OutputGuard.NotWrittenNote(path)}");
                 return ExitCodes.NotConverged;
             }
             var clock = System.Diagnostics.Stopwatch.StartNew();

@@ -27,6 +27,7 @@ public static class ModelBinder
         {
             halfWidth = hw.EvaluateReal(env);
             if (!(halfWidth > 0)) throw new ModelError(hw.Location, hw.Field, $"half_width must be positive, found {halfWidth:G6}");
+            PhysicalRange.CheckEnergy(halfWidth, header.Unit, hw.Location, hw.Field, "half_width");
         }
         var layout = UnitCellLayout.Build(spec, lattice, env);
         var terms = new TermBuilder(spec, lattice, layout, env);
@@ -35,12 +36,15 @@ public static class ModelBinder
         double formula = header.FormulaUnitsPerCell.EvaluateReal(env);
         if (!(formula > 0))
             throw new ModelError(header.FormulaUnitsPerCell.Location, header.FormulaUnitsPerCell.Field, $"must be positive, found {formula:G6}");
+        if (formula > PhysicalRange.MaxFormulaUnitsPerCell)
+            throw new ModelError(header.FormulaUnitsPerCell.Location, header.FormulaUnitsPerCell.Field, $"{formula:G6} formula units per cell is outside the physical range (at most {PhysicalRange.MaxFormulaUnitsPerCell:G3})");
         var ne = header.ElectronsPerCell;
         double electrons = ne.EvaluateReal(env);
         int states = layout.Orbitals.Count * flavours;
         if (!(electrons >= 0 && electrons <= states))
             throw new ModelError(ne.Location, ne.Field,
                 $"{electrons:G6} electrons per cell is outside [0, {states}] (states per cell = orbitals x flavours)");
+        CheckInfiniteUFilling(ne, electrons, layout, flavours);
         var model = new BoundModel
         {
             Name = header.Name, Lattice = lattice, Flavours = flavours, Sites = layout.Sites, Orbitals = layout.Orbitals,
@@ -90,6 +94,9 @@ public static class ModelBinder
         {
             a = c.EvaluateReal(env);
             if (!(a > 0)) throw new ModelError(c.Location, c.Field, $"lattice constant must be positive (angstrom), found {a:G6}");
+            if (a < PhysicalRange.MinLatticeConstant || a > PhysicalRange.MaxLatticeConstant)
+                throw new ModelError(c.Location, c.Field,
+                    $"lattice constant {a:G6} angstrom is outside the physical range {PhysicalRange.MinLatticeConstant:G3}..{PhysicalRange.MaxLatticeConstant:G3} angstrom; see \"Ranges\" in models/README.md");
         }
         if (spec.Kind != LatticeKind.Explicit) return Lattice.Create(spec.Kind, a);
         var v = spec.Vectors!;
@@ -99,6 +106,25 @@ public static class ModelBinder
             throw new ModelError(spec.Location, "lattice.vectors", "the three Bravais vectors are linearly dependent (zero cell volume)");
         }
     }
+
+    /// <summary>
+    /// At infinite U a shell holds at most Q electrons (n_f + r^2 = Q with r^2 &gt;= 0), so a cell holds at most its
+    /// conduction states plus Q per shell (Coleman, Phys. Rev. B 29, 3035 (1984): the constraint n_f + n_b = Q). A larger
+    /// count has no saddle point; refusing it here keeps `check` and `solve` in agreement.
+    /// </summary>
+    private static void CheckInfiniteUFilling(ModelExpression ne, double electrons, UnitCellLayout layout, int flavours)
+    {
+        if (layout.Shells.Count == 0) return;
+        int conduction = layout.Orbitals.Count(o => o.Kind == OrbitalKind.Conduction) * flavours;
+        double shells = layout.Shells.Sum(s => s.Constraint);
+        double most = conduction + shells;
+        if (electrons > most * (1 + FillingTolerance))
+            throw new ModelError(ne.Location, ne.Field, string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                $"{electrons:G6} electrons per cell cannot be placed at infinite U: the cell holds at most {most:G6} ({conduction} conduction states plus Q per correlated shell, {shells:G6} in all); lower electrons_per_cell or raise a shell's constraint"));
+    }
+
+    /// <summary>Relative slack of the filling bound, for electron counts written as rounded expressions.</summary>
+    public const double FillingTolerance = 1e-12;
 
     private static void CheckHermitian(ModelSpec spec, BoundModel model)
     {

@@ -35,15 +35,20 @@ public static class ModelFile
         ["flat-dos"] = LatticeKind.FlatDos, ["semi-elliptic-dos"] = LatticeKind.SemiEllipticDos,
     };
 
+    /// <summary>Largest number of flavours (and shell degeneracy): SU(16) is beyond any model in use (common practice).</summary>
+    public const int MaxFlavours = 16;
+
     /// <summary>Reads and parses the file at <paramref name="path"/>.</summary>
     public static ModelSpec Load(string path)
     {
         string text;
-        try { text = File.ReadAllText(path); }
+        Utf8Text.InvalidByte? invalid;
+        try { text = Utf8Text.Read(path, out invalid); }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
         {
             throw new ModelError(new SourceLocation(path, null, null), "", $"cannot read the model file: {e.Message}");
         }
+        if (invalid is { } bad) throw new ModelError(new SourceLocation(path, bad.Line, bad.Column), "", bad.Problem);
         return Parse(text, path);
     }
 
@@ -110,8 +115,8 @@ public static class ModelFile
         var electrons = t.Expression("electrons_per_cell")
             ?? throw t.Missing("electrons_per_cell", "electron count per unit cell (a number or an expression); it is required");
         long flavours = t.Integer("flavours") ?? 2;
-        if (flavours < 1 || flavours > 16)
-            throw new ModelError(t.Entry("flavours")!.Value.Location, t.Field("flavours"), $"flavours must be between 1 and 16, found {flavours}");
+        if (flavours < 1 || flavours > MaxFlavours)
+            throw new ModelError(t.Entry("flavours")!.Value.Location, t.Field("flavours"), $"flavours must be between 1 and {MaxFlavours}, found {flavours}");
         return new ModelHeader(name, unit, formula, electrons, (int)flavours, t.Location);
     }
 
@@ -133,6 +138,14 @@ public static class ModelFile
         return list;
     }
 
+    private static void CheckReduced(double[] v, TomlNode node, string field)
+    {
+        for (int k = 0; k < v.Length; k++)
+            if (Math.Abs(v[k]) > PhysicalRange.MaxReducedCoordinate)
+                throw new ModelError(node is TomlList l && k < l.Items.Count ? l.Items[k].Location : node.Location, $"{field}[{k + 1}]",
+                    string.Create(CultureInfo.InvariantCulture, $"{v[k]:G6} is outside the physical range: components are in units of the lattice constant, at most {PhysicalRange.MaxReducedCoordinate:G3} in magnitude"));
+    }
+
     internal static bool IsIdentifier(string s) =>
         s.Length > 0 && (char.IsLetter(s[0]) || s[0] == '_') && s.All(c => char.IsLetterOrDigit(c) || c == '_');
 
@@ -152,8 +165,14 @@ public static class ModelFile
             vectors = [];
             for (int k = 0; k < 3; k++)
             {
-                var v = TableReader.AsNumbers(list.Items[k], $"{t.Field("vectors")}[{k + 1}]", 3);
-                vectors.Add(new Vec3(v[0], v[1], v[2]));
+                string field = $"{t.Field("vectors")}[{k + 1}]";
+                var v = TableReader.AsNumbers(list.Items[k], field, 3);
+                CheckReduced(v, list.Items[k], field);
+                var vector = new Vec3(v[0], v[1], v[2]);
+                if (vector.Norm < PhysicalRange.MinReducedVectorLength)
+                    throw new ModelError(list.Items[k].Location, field, string.Create(CultureInfo.InvariantCulture,
+                        $"Bravais vector of length {vector.Norm:G3} (units of the constant) is shorter than {PhysicalRange.MinReducedVectorLength:G3}: a zero or vanishing cell"));
+                vectors.Add(vector);
             }
         }
         else if (kind == LatticeKind.Explicit)
@@ -177,6 +196,7 @@ public static class ModelFile
         if (t.Entry("position") is { } p)
         {
             var v = TableReader.AsNumbers(p.Value, t.Field("position"), 3);
+            CheckReduced(v, p.Value, t.Field("position"));
             position = new Vec3(v[0], v[1], v[2]);
         }
         var orbitals = new List<string>();
@@ -204,6 +224,8 @@ public static class ModelFile
             if (orbitals.Contains(shellName))
                 throw new ModelError(s.Location, s.Field("name"), $"shell name '{shellName}' is already a conduction orbital of site '{name}'");
             long? degeneracy = s.Integer("degeneracy");
+            if (degeneracy is < 1 or > MaxFlavours)
+                throw new ModelError(s.Entry("degeneracy")!.Value.Location, s.Field("degeneracy"), $"degeneracy must be between 1 and {MaxFlavours}, found {degeneracy}");
             var constraint = s.Expression("constraint") ?? ModelExpression.Constant(1, s.Field("constraint"), s.Location);
             shell = new ShellSpec(shellName, s.Expression("level", true)!, degeneracy is null ? null : (int)degeneracy,
                                   constraint, s.String("group"), s.Path, s.Location);
@@ -233,6 +255,10 @@ public static class ModelFile
             if (list is null || list.Items.Count != 3 || list.Items.Any(x => x is not TomlScalar { Value: long }))
                 throw TableReader.WrongType(v.Value, t.Field("vector"), "three integers [n1, n2, n3] (lattice-vector coordinates)");
             var n = list.Items.Select(x => (long)((TomlScalar)x).Value).ToArray();
+            for (int k = 0; k < 3; k++)
+                if (Math.Abs(n[k]) > PhysicalRange.MaxBondCells) // checked before the cast: 4294967296 must not wrap to 0
+                    throw new ModelError(list.Items[k].Location, $"{t.Field("vector")}[{k + 1}]",
+                        $"bond vector component {n[k]} is outside -{PhysicalRange.MaxBondCells}..{PhysicalRange.MaxBondCells} cells");
             vector = ((int)n[0], (int)n[1], (int)n[2]);
         }
         if (t.Integer("neighbour") is long shell)
@@ -300,13 +326,16 @@ public static class ModelFile
             if (e.Value is TomlScalar { Value: string s, IsDate: false }) { text = s; temperature = ParseTemperature(s, unit, e.Value.Location, t.Field("temperature")); }
             else { temperature = TableReader.AsNumber(e.Value, t.Field("temperature")); text = temperature.Value.ToString("R", CultureInfo.InvariantCulture); }
             if (temperature < 0) throw new ModelError(e.Value.Location, t.Field("temperature"), "temperature must not be negative");
+            PhysicalRange.CheckEnergy(temperature!.Value, unit, e.Value.Location, t.Field("temperature"), "temperature");
         }
         long? mesh = t.Integer("mesh");
-        if (mesh is < 1 or > 4096) throw new ModelError(t.Entry("mesh")!.Value.Location, t.Field("mesh"), $"mesh must be between 1 and 4096, found {mesh}");
+        if (mesh is < PhysicalRange.MinMesh or > PhysicalRange.MaxMesh)
+            throw new ModelError(t.Entry("mesh")!.Value.Location, t.Field("mesh"), $"mesh must be between {PhysicalRange.MinMesh} and {PhysicalRange.MaxMesh} divisions, found {mesh}");
         double? tolerance = t.Number("tolerance");
         if (tolerance is <= 0) throw new ModelError(t.Entry("tolerance")!.Value.Location, t.Field("tolerance"), "tolerance must be positive");
         long? iterations = t.Integer("max_iterations");
-        if (iterations is < 1) throw new ModelError(t.Entry("max_iterations")!.Value.Location, t.Field("max_iterations"), "max_iterations must be positive");
+        if (iterations is < 1 or > PhysicalRange.MaxIterations)
+            throw new ModelError(t.Entry("max_iterations")!.Value.Location, t.Field("max_iterations"), $"max_iterations must be between 1 and {PhysicalRange.MaxIterations}, found {iterations}");
         return new SolverHints(text, temperature, (int?)mesh, t.Boolean("shifted"), tolerance, (int?)iterations);
     }
 
@@ -314,7 +343,7 @@ public static class ModelFile
     private static double ParseTemperature(string s, EnergyUnit unit, SourceLocation where, string field)
     {
         var parts = s.Trim().Split(' ', StringSplitOptions.RemoveEmptyEntries);
-        if (parts.Length is 0 or > 2 || !double.TryParse(parts[0], NumberStyles.Float, CultureInfo.InvariantCulture, out double value))
+        if (parts.Length is 0 or > 2 || !double.TryParse(parts[0], NumberStyles.Float, CultureInfo.InvariantCulture, out double value) || !double.IsFinite(value))
             throw new ModelError(where, field, $"cannot read temperature \"{s}\": write a number and an optional unit, for example \"2 K\"");
         if (parts.Length == 1) return value;
         if (!EnergyUnits.TryParse(parts[1], out var given))

@@ -27,12 +27,22 @@ internal sealed class TermBuilder(ModelSpec spec, Lattice lattice, UnitCellLayou
 
     private FlavourMatrix Matrix(AmplitudeSpec a)
     {
-        if (!a.IsPauli) return FlavourMatrix.Identity(_flavours, a.Scalar!.Evaluate(env));
+        if (!a.IsPauli) return FlavourMatrix.Identity(_flavours, Energy(a.Scalar!, a.Scalar!.Evaluate(env)));
         if (_flavours != 2)
             throw new ModelError(a.Location, a.Field, $"spin (Pauli) matrices need flavours = 2, but the model has flavours = {_flavours}");
-        Complex V(ModelExpression? e) => e?.Evaluate(env) ?? Complex.Zero;
+        Complex V(ModelExpression? e) => e is null ? Complex.Zero : Energy(e, e.Evaluate(env));
         return FlavourMatrix.Pauli(V(a.Identity), V(a.X), V(a.Y), V(a.Z));
     }
+
+    /// <summary>The value of an energy expression, after checking it lies in <see cref="PhysicalRange"/>.</summary>
+    private Complex Energy(ModelExpression e, Complex value)
+    {
+        PhysicalRange.CheckEnergy(Complex.Abs(value), spec.Header.Unit, e.Location, e.Field, "|amplitude|");
+        return value;
+    }
+
+    private double Energy(ModelExpression e, double value) =>
+        PhysicalRange.CheckEnergy(value, spec.Header.Unit, e.Location, e.Field, "amplitude");
 
     private static string KindName(BondKind k) => k switch
     {
@@ -104,7 +114,7 @@ internal sealed class TermBuilder(ModelSpec spec, Lattice lattice, UnitCellLayou
         if (carriers.Count == 0)
             throw new ModelError(s.Location, $"{s.Field}.orbital", $"no site has an orbital '{s.Orbital}'",
                 NameSuggestion.Closest(s.Orbital, layout.Orbitals.Select(o => o.Name).Distinct()));
-        double m = s.Amplitude.EvaluateReal(env);
+        double m = Energy(s.Amplitude, s.Amplitude.EvaluateReal(env));
         var signs = new List<(int Site, double Sign)>();
         if (s.Signs is null)
         {
@@ -131,7 +141,7 @@ internal sealed class TermBuilder(ModelSpec spec, Lattice lattice, UnitCellLayou
     {
         if (_flavours != 2)
             throw new ModelError(z.Location, "zeeman", $"a Zeeman field needs flavours = 2, but the model has flavours = {_flavours}");
-        var b = z.Field.Select(e => e.EvaluateReal(env)).ToArray();
+        var b = z.Field.Select(e => Energy(e, e.EvaluateReal(env))).ToArray();
         var m = FlavourMatrix.Pauli(0, b[0], b[1], b[2]);
         for (int o = 0; o < layout.Orbitals.Count; o++)
         {
@@ -151,7 +161,7 @@ internal sealed class TermBuilder(ModelSpec spec, Lattice lattice, UnitCellLayou
         if (carriers.Count == 0)
             throw new ModelError(so.Location, $"{so.Field}.orbital", $"no site has an orbital '{so.Orbital}'",
                 NameSuggestion.Closest(so.Orbital, layout.Orbitals.Select(o => o.Name).Distinct()));
-        var lambda = so.Amplitude.Evaluate(env);
+        var lambda = Energy(so.Amplitude, so.Amplitude.Evaluate(env));
         var positions = layout.Sites.Select(s => s.Position).ToList();
         foreach (int site in carriers)
         {

@@ -21,7 +21,14 @@ internal static class TomlTreeBuilder
         {
             foreach (var d in doc.Diagnostics)
                 if (d.Kind == DiagnosticMessageKind.Error)
-                    throw new ModelError(At(sourceName, d.Span.Start), "", $"TOML syntax error: {d.Message}");
+                {
+                    var at = At(sourceName, d.Span.Start);
+                    // Tomlyn reports a string left open on the line after it; point at its opening quote instead.
+                    if (UnclosedString(text) is { } open && open.Line <= at.Line)
+                        throw new ModelError(new SourceLocation(sourceName, open.Line, open.Column), "",
+                            $"TOML syntax error: the string opened here has no closing {open.Quote} on its line");
+                    throw new ModelError(at, "", $"TOML syntax error: {d.Message}");
+                }
         }
         var root = new TomlTable(new SourceLocation(sourceName, 1, 1));
         foreach (var kv in doc.KeyValues) AddKeyValue(sourceName, root, kv);
@@ -56,6 +63,43 @@ internal static class TomlTreeBuilder
     }
 
     private static SourceLocation At(string file, TextPosition p) => new(file, p.Line + 1, p.Column + 1);
+
+    /// <summary>
+    /// The first one-line string ("..." or '...') that reaches the end of its line unclosed (TOML 1.0: basic and
+    /// literal strings end on their line), skipping comments and multi-line strings; null when there is none.
+    /// </summary>
+    internal static (int Line, int Column, char Quote)? UnclosedString(string text)
+    {
+        int line = 1, column = 0;
+        string? multi = null; // the delimiter of an open multi-line string
+        for (int i = 0; i < text.Length; i++)
+        {
+            char c = text[i];
+            column++;
+            if (c == '\n') { line++; column = 0; continue; }
+            if (multi is not null)
+            {
+                if (multi == "\"\"\"" && c == '\\') { i++; column++; if (i < text.Length && text[i] == '\n') { line++; column = 0; } continue; }
+                if (string.CompareOrdinal(text, i, multi, 0, 3) == 0) { i += 2; column += 2; multi = null; }
+                continue;
+            }
+            if (c == '#') { while (i + 1 < text.Length && text[i + 1] != '\n') i++; continue; }
+            if (c is not ('"' or '\'')) continue;
+            string triple = new(c, 3);
+            if (string.CompareOrdinal(text, i, triple, 0, 3) == 0) { multi = triple; i += 2; column += 2; continue; }
+            int startColumn = column;
+            bool closed = false;
+            for (i++; i < text.Length && text[i] != '\n'; i++)
+            {
+                column++;
+                if (c == '"' && text[i] == '\\' && i + 1 < text.Length && text[i + 1] != '\n') { i++; column++; continue; }
+                if (text[i] == c) { closed = true; break; }
+            }
+            if (!closed) return (line, startColumn, c);
+            if (i < text.Length && text[i] == '\n') i--; // let the outer loop count the newline
+        }
+        return null;
+    }
 
     private static TomlTable Descend(string file, TomlTable parent, (string Name, SourceLocation Where) part)
     {

@@ -20,7 +20,7 @@ internal sealed class UnitCellLayout
     {
         var file = spec.SourceName;
         if (spec.Sites.Count == 0)
-            throw new ModelError(new SourceLocation(file, null, null), "site", "empty model: no [[site]] blocks, so no orbitals");
+            throw new ModelError(spec.Lattice.Location, "site", "empty model: no [[site]] blocks, so no orbitals (add [[site]] blocks after [lattice])");
         var basis = Lattice.DefaultBasis(spec.Lattice.Kind, lattice.Constant);
         var layout = new UnitCellLayout { Sites = [], Orbitals = [], Shells = [] };
         int flavours = spec.Header.Flavours;
@@ -49,9 +49,10 @@ internal sealed class UnitCellLayout
                     throw new ModelError(shell.Location, $"{shell.Field}.degeneracy",
                         $"degeneracy {n} must equal the model's flavours = {flavours} (every orbital carries the same flavours)");
                 double q = shell.Constraint.EvaluateReal(env);
-                if (!(q > 0 && q <= flavours))
-                    throw new ModelError(shell.Constraint.Location, shell.Constraint.Field, $"constraint Q = {q:G6} must lie in (0, {flavours}]");
-                double level = shell.Level.EvaluateReal(env);
+                // The solver needs room for the boson: n_f + r^2 = Q with n_f < N (SaddlePointSolver refuses Q >= N).
+                if (!(q > 0 && q < flavours))
+                    throw new ModelError(shell.Constraint.Location, shell.Constraint.Field, $"constraint Q = {q:G6} must lie in (0, {flavours}) (0 < Q < N = flavours)");
+                double level = PhysicalRange.CheckEnergy(shell.Level.EvaluateReal(env), spec.Header.Unit, shell.Level.Location, shell.Level.Field, "level");
                 layout._orbitalIndex[(s, shell.Name)] = layout.Orbitals.Count;
                 layout.Shells.Add(new CorrelatedShell(layout.Orbitals.Count, flavours, q, level, shell.Group ?? site.Name));
                 layout.Orbitals.Add(new Orbital(shell.Name, s, OrbitalKind.Correlated));

@@ -7,17 +7,24 @@ namespace Meanfield.Output;
 public static class AtomicFile
 {
     /// <summary>Runs <paramref name="write"/> on a temporary file in the target's folder, then moves it onto <paramref name="path"/>.</summary>
+    /// <exception cref="DirectoryNotFoundException">The target's folder does not exist.</exception>
+    /// <exception cref="OutputPathException">The file cannot be created, written or renamed into place; the message
+    /// names the target, never the temporary sibling.</exception>
     public static async Task WriteAsync(string path, Func<Stream, Task> write)
     {
         var full = Path.GetFullPath(path);
         var dir = Path.GetDirectoryName(full) ?? ".";
         if (!Directory.Exists(dir)) throw new DirectoryNotFoundException($"Output folder '{dir}' of '{path}' does not exist.");
-        var tmp = Path.Combine(dir, $".{Path.GetFileName(full)}.{Guid.NewGuid():N}.tmp");
+        var tmp = TemporarySibling(full);
         try
         {
-            await using (var stream = new FileStream(tmp, FileMode.CreateNew, FileAccess.Write, FileShare.None))
+            await using (var stream = Create(tmp, path, dir))
                 await write(stream);
             File.Move(tmp, full, overwrite: true);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            throw CannotWrite(path, dir, tmp, e);
         }
         finally
         {
@@ -32,4 +39,27 @@ public static class AtomicFile
     /// <summary>Writes UTF-8 text (no byte-order mark) atomically.</summary>
     public static void WriteText(string path, string text) =>
         Write(path, s => { using var w = new StreamWriter(s, new System.Text.UTF8Encoding(false)); w.Write(text); });
+
+    /// <summary>A hidden, unique sibling of <paramref name="fullPath"/> in the same folder (so the rename is atomic).</summary>
+    public static string TemporarySibling(string fullPath) =>
+        Path.Combine(Path.GetDirectoryName(fullPath) ?? ".", $".{Path.GetFileName(fullPath)}.{Guid.NewGuid():N}.tmp");
+
+    /// <summary>The failure to write <paramref name="path"/>, in words that name it rather than the temporary file.</summary>
+    public static OutputPathException CannotWrite(string path, string folder, string temporary, Exception e)
+    {
+        string why = e switch
+        {
+            UnauthorizedAccessException => $"permission denied in {folder}",
+            FileNotFoundException or DirectoryNotFoundException => $"{folder} does not accept new files",
+            _ when Directory.Exists(path) => "it is a folder; give a file name inside it",
+            _ => e.Message.Replace(temporary, path, StringComparison.Ordinal),
+        };
+        return new OutputPathException($"cannot write {path}: {why}; nothing was written", e);
+    }
+
+    private static FileStream Create(string tmp, string path, string dir)
+    {
+        try { return new FileStream(tmp, FileMode.CreateNew, FileAccess.Write, FileShare.None); }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException) { throw CannotWrite(path, dir, tmp, e); }
+    }
 }

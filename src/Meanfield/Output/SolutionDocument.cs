@@ -91,7 +91,12 @@ public sealed record SolutionDocument
 
     public void Save(string path) => AtomicFile.WriteText(path, ToJson() + "\n");
 
-    /// <summary>Reads a solution file; a file that is not one gives an <see cref="InvalidDataException"/> naming it.</summary>
+    /// <summary>
+    /// Reads a solution file and checks its own fields (<see cref="SolutionValidator.CheckFields"/>): present, finite,
+    /// in range and consistent with each other.
+    /// </summary>
+    /// <exception cref="InvalidDataException">Not a solution file, or a field is missing, not finite or out of range;
+    /// the message names the file and the field.</exception>
     public static SolutionDocument Load(string path)
     {
         try
@@ -99,6 +104,8 @@ public sealed record SolutionDocument
             var doc = JsonSerializer.Deserialize<SolutionDocument>(File.ReadAllText(path), Json)
                       ?? throw new InvalidDataException($"{path}: empty solution file");
             if (doc.Format != FormatTag) throw new InvalidDataException($"{path}: format '{doc.Format}' is not '{FormatTag}'");
+            if (doc.Notes is null) doc = doc with { Notes = [] };
+            SolutionValidator.CheckFields(doc, path);
             return doc;
         }
         catch (JsonException e)
@@ -107,15 +114,61 @@ public sealed record SolutionDocument
         }
     }
 
-    /// <summary>Amplitudes for the model's shell groups, after checking the solution belongs to this model text.</summary>
-    public MeanFieldAmplitudes AmplitudesFor(BoundModel model, string solutionPath)
+    /// <summary>The model path a solution file names, or null when the file cannot be read as JSON (no validation).</summary>
+    public static string? PeekModelPath(string path)
     {
-        var hash = Provenance.Hash(model.SourceText);
+        try
+        {
+            using var doc = JsonDocument.Parse(File.ReadAllBytes(path));
+            return doc.RootElement.ValueKind == JsonValueKind.Object && doc.RootElement.TryGetProperty("model_path", out var p)
+                   && p.ValueKind == JsonValueKind.String ? p.GetString() : null;
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException or JsonException) { return null; }
+    }
+
+    /// <summary>
+    /// The model this solution names, bound with the solution's parameter values and then <paramref name="overrides"/>,
+    /// after checking that the model file exists, that its text is the one solved (SHA-256) and that the solution lists
+    /// exactly the model's parameters.
+    /// </summary>
+    /// <exception cref="InvalidDataException">The model file is missing or changed, or the parameters do not match.</exception>
+    /// <exception cref="Models.ModelError">The model or an override does not bind.</exception>
+    public BoundModel BindModel(string solutionPath, IReadOnlyDictionary<string, string>? overrides = null)
+    {
+        if (!File.Exists(ModelPath)) throw new InvalidDataException($"{solutionPath}: model_path: its model file '{ModelPath}' is not found");
+        var spec = Models.ModelFile.Load(ModelPath);
+        CheckHash(spec.SourceText, solutionPath);
+        var names = spec.Parameters.Select(p => p.Name).ToList();
+        foreach (var name in Parameters.Keys)
+            if (!names.Contains(name))
+                throw SolutionValidator.Bad(solutionPath, $"parameters.{name}", $"is not a parameter of the model {ModelPath}");
+        foreach (var name in names)
+            if (!Parameters.ContainsKey(name))
+                throw SolutionValidator.Bad(solutionPath, "parameters", $"'{name}' of the model is missing");
+        var all = Parameters.ToDictionary(p => p.Key, p => p.Value.ToString("R", System.Globalization.CultureInfo.InvariantCulture));
+        foreach (var (name, value) in overrides ?? new Dictionary<string, string>()) all[name] = value;
+        return Models.ModelBinder.Bind(spec, all);
+    }
+
+    /// <summary>
+    /// Amplitudes for the model's shell groups, after checking that the solution belongs to this model text and fits
+    /// it (<see cref="SolutionValidator.CheckAgainst"/>) and, with <paramref name="verifySaddlePoint"/> (default), that it
+    /// solves the saddle-point equations (<see cref="SolutionValidator.CheckSaddlePoint"/>: one pass over its mesh).
+    /// </summary>
+    /// <exception cref="InvalidDataException">The solution was made from another model text, does not fit the model, or
+    /// is not a saddle point of it.</exception>
+    public MeanFieldAmplitudes AmplitudesFor(BoundModel model, string solutionPath, bool verifySaddlePoint = true)
+    {
+        CheckHash(model.SourceText, solutionPath);
+        SolutionValidator.CheckAgainst(this, model, solutionPath);
+        if (verifySaddlePoint) SolutionValidator.CheckSaddlePoint(this, model, solutionPath);
+        return new MeanFieldAmplitudes([.. Sites.Select(s => s.R)], [.. Sites.Select(s => s.Lambda)]);
+    }
+
+    private void CheckHash(string modelText, string solutionPath)
+    {
+        var hash = Provenance.Hash(modelText);
         if (hash != ModelSha256)
             throw new InvalidDataException($"{solutionPath}: solution was made from a different model text (model hash {ModelSha256[..12]}, this model {hash[..12]}); solve again");
-        var groups = model.ShellGroups();
-        if (groups.Count != Sites.Count || groups.Where((g, i) => g != Sites[i].Name).Any())
-            throw new InvalidDataException($"{solutionPath}: shell groups [{string.Join(", ", Sites.Select(s => s.Name))}] do not match the model's [{string.Join(", ", groups)}]");
-        return new MeanFieldAmplitudes([.. Sites.Select(s => s.R)], [.. Sites.Select(s => s.Lambda)]);
     }
 }

@@ -4,17 +4,19 @@ namespace Meanfield.Scans;
 
 /// <summary>
 /// Gathers finished rows from the snake segments and writes them as chunk files every few points or seconds. The
-/// schema is fixed by the first row (or by chunks of an earlier run).
+/// schema is fixed by the first solved row (or by chunks of an earlier run); rows of points whose solve threw wait
+/// for it, since they carry no correlated groups of their own.
 /// </summary>
 internal sealed class ChunkCollector(ScanOutput output, ScanGrid grid, ShardSpec shard, ScanRunOptions options, ScanSchema? schema)
 {
     private readonly SemaphoreSlim _gate = new(1, 1);
     private readonly List<ScanRow> _buffer = [];
     private readonly List<ScanRow> _written = [];
+    private readonly List<ScanRow> _pending = [];
     private readonly Stopwatch _sinceFlush = Stopwatch.StartNew();
     private Dictionary<string, string>? _metadata;
 
-    public ScanSchema? Schema { get; private set; } = schema;
+    public ScanSchema? Schema { get; private set; } = schema?.WithErrorColumn();
     /// <summary>Every row written to a chunk in this run.</summary>
     public IReadOnlyList<ScanRow> Written => _written;
 
@@ -23,7 +25,14 @@ internal sealed class ChunkCollector(ScanOutput output, ScanGrid grid, ShardSpec
         await _gate.WaitAsync();
         try
         {
-            if (Schema is null) Schema = ScanSchema.From(grid, point, row.Result, includeSolverState: true);
+            if (Schema is null)
+            {
+                if (row.Result.Error is not null) { _pending.Add(row); return; }
+                Schema = ScanSchema.From(grid, point, row.Result, includeSolverState: true);
+                foreach (var p in _pending) _buffer.Add(Fit(p));
+                _pending.Clear();
+            }
+            row = Fit(row);
             Schema.Check(row);
             _buffer.Add(row);
             if (_buffer.Count >= options.FlushEveryPoints || _sinceFlush.Elapsed >= options.FlushInterval)
@@ -36,8 +45,27 @@ internal sealed class ChunkCollector(ScanOutput output, ScanGrid grid, ShardSpec
     public async Task FlushAsync()
     {
         await _gate.WaitAsync();
-        try { await FlushLockedAsync(); }
+        try
+        {
+            if (Schema is null && _pending.Count > 0)
+            {
+                // Every point failed: the columns come from the grid and the numeric overrides alone.
+                var first = _pending[0];
+                Schema = new ScanSchema(grid.Axes.Select(a => a.Name).ToList(), first.Parameters.Select(p => p.Key).ToList(), [], includeSolverState: true);
+                _buffer.AddRange(_pending);
+                _pending.Clear();
+            }
+            await FlushLockedAsync();
+        }
         finally { _gate.Release(); }
+    }
+
+    // A failed point's row gets the schema's groups with NaN values (r, lambda and n_f are unknown there).
+    private ScanRow Fit(ScanRow row)
+    {
+        if (row.Result.Error is null || Schema is null || row.Result.Groups.Count == Schema.GroupNames.Count) return row;
+        var groups = Schema.GroupNames.Select(g => new GroupSolution(g, double.NaN, double.NaN, double.NaN)).ToArray();
+        return row with { Result = row.Result with { Groups = groups } };
     }
 
     public Dictionary<string, string> Metadata(ScanSchema s) =>

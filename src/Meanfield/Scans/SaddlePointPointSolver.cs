@@ -15,6 +15,7 @@ namespace Meanfield.Scans;
 public sealed class SaddlePointPointSolver
 {
     private readonly ModelSpec _spec;
+    private ScanDefinition? _scan;
     private long _passes, _diagonalisationTicks, _solves, _iterations;
 
     /// <summary>
@@ -33,9 +34,54 @@ public sealed class SaddlePointPointSolver
         _spec = spec; Settings = settings; Columns = columns;
     }
 
-    /// <summary>A solver for a parsed scan file (the model is re-parsed from the text the scan's hash covers).</summary>
-    public static SaddlePointPointSolver For(ScanDefinition scan) =>
-        new(ModelFile.Parse(scan.ModelText, scan.ModelPath), scan.Solver, scan.Columns);
+    /// <summary>
+    /// A solver for a parsed scan file (the model is re-parsed from the text the scan's hash covers). Errors that would
+    /// fail every point are refused here: a [fixed] value that does not bind (named by scan file, line and field), and a
+    /// model that fails to bind the same way at its defaults and at the first point.
+    /// </summary>
+    /// <exception cref="ScanFileError">A fixed value does not bind.</exception>
+    /// <exception cref="ModelError">The model does not bind, independently of the scanned values.</exception>
+    public static SaddlePointPointSolver For(ScanDefinition scan)
+    {
+        var solver = new SaddlePointPointSolver(ModelFile.Parse(scan.ModelText, scan.ModelPath), scan.Solver, scan.Columns) { _scan = scan };
+        solver.CheckBindsAtLoad(scan.ToGrid());
+        return solver;
+    }
+
+    private void CheckBindsAtLoad(ScanGrid grid)
+    {
+        var fixedOnly = new Dictionary<string, string>(StringComparer.Ordinal);
+        foreach (var kv in _scan!.Fixed) fixedOnly[kv.Key] = kv.Value;
+        ModelError? atDefaults = null;
+        try { ModelBinder.Bind(_spec, fixedOnly); }
+        catch (ModelError e) when (e.File == ModelBinder.OverrideSource && _scan.Source(e.Field) is { } src)
+        {
+            throw new ScanFileError(_scan.SourcePath, src.Line, src.Field, fixedOnly.GetValueOrDefault(e.Field) is { } v && !e.Problem.Contains(v, StringComparison.Ordinal) ? $"\"{v}\": {e.Problem}" : e.Problem);
+        }
+        catch (ModelError e) { atDefaults = e; }
+        if (atDefaults is null) return;
+        var first = new Dictionary<string, string>(StringComparer.Ordinal);
+        foreach (var kv in grid.Point(grid.SnakeId(0)).Overrides) first[kv.Key] = kv.Value;
+        try { ModelBinder.Bind(_spec, first); }
+        catch (ModelError again) when (again.Message == atDefaults.Message) { throw atDefaults; }
+        catch (ModelError) { } // depends on the values: flagged at the points where it happens when the scan runs
+    }
+
+    /// <summary>The model at a point; an override that fails names the scan file, its line and the point.</summary>
+    private BoundModel Bind(ScanPoint point)
+    {
+        var overrides = new Dictionary<string, string>(StringComparer.Ordinal);
+        foreach (var kv in point.Overrides) overrides[kv.Key] = kv.Value; // insertion order kept: evaluated in order
+        try { return ModelBinder.Bind(_spec, overrides); }
+        catch (ModelError e) when (e.File == ModelBinder.OverrideSource && _scan?.Source(e.Field) is { } src)
+        {
+            throw new ScanFileError(_scan.SourcePath, src.Line, src.Field, $"{e.Problem}{(point.Override(e.Field) is { } v && !e.Problem.Contains(v, StringComparison.Ordinal) ? $" (value \"{v}\")" : "")} at {point.Label}");
+        }
+        catch (ModelError e) when (e.File != ModelBinder.OverrideSource)
+        {
+            throw new ModelError(new SourceLocation(e.File, e.Line, e.Column), e.Field, $"{e.Problem} at {point.Label} of the scan", e.Suggestion);
+        }
+    }
 
     public PointSolver Delegate => Solve;
 
@@ -51,9 +97,7 @@ public sealed class SaddlePointPointSolver
 
     public ScanPointResult Solve(ScanPoint point, ScanPointResult? warmStart, CancellationToken ct)
     {
-        var overrides = new Dictionary<string, string>(StringComparer.Ordinal);
-        foreach (var kv in point.Overrides) overrides[kv.Key] = kv.Value; // insertion order kept: evaluated in order
-        var model = ModelBinder.Bind(_spec, overrides);
+        var model = Bind(point);
         int groups = model.ShellGroups().Count;
         var settings = new SolverSettings
         {

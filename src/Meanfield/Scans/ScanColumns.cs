@@ -50,7 +50,7 @@ internal static class ScanColumns
         c.Add(new NullableColumn<double>("beta_mJ_per_mol_K4", "mJ mol^-1 K^-4", r => r.Result.Spectrum.BetaMilliJoulePerMolK4, (d, v) => d.Spectrum = d.Spectrum with { BetaMilliJoulePerMolK4 = v }));
         c.Add(new TextColumn("phase", "", r => r.Result.Spectrum.Phase, (d, v) => d.Spectrum = d.Spectrum with { Phase = v }));
         c.Add(new TextColumn("phase_reason", "", r => r.Result.Spectrum.PhaseReason, (d, v) => d.Spectrum = d.Spectrum with { PhaseReason = v }));
-        c.Add(new TextColumn("error", "", r => r.Result.Error, (d, v) => d.Error = v));
+        if (s.IncludeErrorColumn) c.Add(new TextColumn("error", "", r => r.Result.Error, (d, v) => d.Error = v));
         c.Add(new ValueColumn<double>("wall_seconds", "s", r => r.WallSeconds, (d, v) => d.WallSeconds = v));
         c.Add(new ValueColumn<bool>("warm_started", "", r => r.WarmStarted, (d, v) => d.WarmStarted = v));
         if (s.IncludeSolverState) c.Add(new SolverStateColumn());

@@ -16,6 +16,19 @@ public sealed record ScanDefinition
     public double? TemperatureK { get; init; }
     public ScanSolverSettings Solver { get; init; } = new();
     public ScanColumnRequest Columns { get; init; } = new();
+    /// <summary>1-based line of each override source: "axis.NAME" (its [[axis]] table), "fixed.NAME", "tie.NAME".</summary>
+    public IReadOnlyDictionary<string, int> Lines { get; init; } = new Dictionary<string, int>();
+
+    /// <summary>
+    /// Where the value of parameter <paramref name="name"/> comes from in the scan file: the field ("tie.m",
+    /// "fixed.t", "axis.V") and its line (0 when unknown); null when the scan does not set it.
+    /// </summary>
+    public (string Field, int Line)? Source(string name)
+    {
+        foreach (var table in new[] { "tie", "fixed", "axis" })
+            if (Lines.TryGetValue($"{table}.{name}", out int line)) return ($"{table}.{name}", line);
+        return null;
+    }
 
     public ScanGrid ToGrid() => new(Axes, Fixed, Ties, TemperatureK);
 

@@ -16,6 +16,12 @@ public static class ScanFileReader
     private static readonly string[] SolverKeys = ["mesh", "tolerance", "max_iterations", "shifted"];
     private static readonly string[] ColumnKeys = ["heat", "nodes", "dos"];
 
+    /// <summary>Most points along one axis (a 1e4 x 1e4 map is already 1e8 solves).</summary>
+    public const int MaxAxisPoints = 10_000;
+
+    /// <summary>Highest temperature, K: the energy bound of models (1 keV, <see cref="Models.PhysicalRange"/>) over k_B.</summary>
+    public static readonly double MaxKelvin = Models.PhysicalRange.MaxEnergyElectronVolts * Units.EnergyUnits.Kelvins(Units.EnergyUnit.ElectronVolt);
+
     /// <summary>Reads and checks a scan file.</summary>
     /// <param name="modelParameters">The model's parameter names when known: fixed and tied names are then checked
     /// against them, and an axis that is not a model parameter becomes a free variable. Without them, free variables
@@ -24,7 +30,9 @@ public static class ScanFileReader
     {
         string full = Path.GetFullPath(path);
         if (!File.Exists(full)) throw new ScanFileError(path, 0, "file", "scan file not found");
-        return Parse(File.ReadAllText(full), full, modelParameters);
+        var text = Models.Utf8Text.Read(full, out var invalid);
+        if (invalid is { } bad) throw new ScanFileError(full, bad.Line, "text", $"column {bad.Column}: {bad.Problem}");
+        return Parse(text, full, modelParameters);
     }
 
     public static ScanDefinition Parse(string text, string path, IReadOnlyCollection<string>? modelParameters = null)
@@ -56,6 +64,7 @@ public static class ScanFileReader
         var solver = new ScanSolverSettings();
         var columns = new ScanColumnRequest();
         var seenTables = new HashSet<string>();
+        var lines = new Dictionary<string, int>();
         foreach (var table in doc.Tables)
         {
             string name = table.Name?.ToString().Trim() ?? "";
@@ -68,7 +77,11 @@ public static class ScanFileReader
             if (!isArray && !seenTables.Add(name)) throw new ScanFileError(path, line, $"[{name}]", "table given twice");
             switch (name)
             {
-                case "axis": axes.Add((r.Axis(table), line)); break;
+                case "axis":
+                    var axis = r.Axis(table);
+                    axes.Add((axis, line));
+                    lines.TryAdd("axis." + axis.Name, line);
+                    break;
                 case "tie":
                     foreach (var kv in table.Items)
                     {
@@ -76,6 +89,7 @@ public static class ScanFileReader
                         if (tieLines.ContainsKey(key)) throw new ScanFileError(path, Reader.Line(kv), $"tie.{key}", "tied twice");
                         ties.Add(new(key, r.Expression(kv, "tie." + key)));
                         tieLines[key] = Reader.Line(kv);
+                        lines["tie." + key] = Reader.Line(kv);
                     }
                     break;
                 case "fixed":
@@ -85,6 +99,7 @@ public static class ScanFileReader
                         if (fixedLines.ContainsKey(key)) throw new ScanFileError(path, Reader.Line(kv), $"fixed.{key}", "fixed twice");
                         fixedValues.Add(new(key, r.Expression(kv, "fixed." + key)));
                         fixedLines[key] = Reader.Line(kv);
+                        lines["fixed." + key] = Reader.Line(kv);
                     }
                     break;
                 case "solver": solver = r.Solver(table); break;
@@ -140,13 +155,34 @@ public static class ScanFileReader
                     int line = fixedLines.TryGetValue(kv.Key, out int l) ? l : tieLines[kv.Key];
                     throw new ScanFileError(path, line, kv.Key, "not a parameter of the model" + ClosestName.Hint(kv.Key, modelParameters));
                 }
+            var free = resolved.Where(a => a.IsFreeVariable).Select(a => a.Name).ToList();
+            foreach (var kv in fixedValues) CheckExpression(path, fixedLines[kv.Key], "fixed." + kv.Key, kv.Value, modelParameters);
+            foreach (var kv in ties) CheckExpression(path, tieLines[kv.Key], "tie." + kv.Key, kv.Value, [.. modelParameters, .. free]);
         }
 
         return new ScanDefinition
         {
             SourcePath = path, SourceText = text, ModelPath = modelPath, ModelText = File.ReadAllText(modelPath),
             Axes = resolved, Ties = ties, Fixed = fixedValues, TemperatureK = temperature, Solver = solver, Columns = columns,
+            Lines = lines,
         };
+    }
+
+    /// <summary>
+    /// A fixed value or tie must parse and use only known names, at load time: such an error would otherwise fail at
+    /// every point, far from the line that causes it.
+    /// </summary>
+    private static void CheckExpression(string path, int line, string field, string text, IReadOnlyCollection<string> known)
+    {
+        Models.Expression tree;
+        try { tree = Models.ExpressionParser.Parse(text); }
+        catch (Models.ExpressionException e)
+        {
+            throw new ScanFileError(path, line, field, $"cannot read expression \"{text}\" (at character {e.Offset + 1}): {e.Problem}");
+        }
+        foreach (var (name, _) in tree.Names())
+            if (!known.Contains(name))
+                throw new ScanFileError(path, line, field, $"\"{text}\" uses '{name}', which is neither a model parameter nor a free axis" + ClosestName.Hint(name, known));
     }
 
     /// <summary>Value readers that turn a wrong type into a <see cref="ScanFileError"/> at the value's line.</summary>
@@ -195,6 +231,7 @@ public static class ScanFileReader
             }
             else t = Number(kv, "temperature");
             if (!(t >= 0) || double.IsInfinity(t)) throw Error(kv, "temperature", "must be a finite temperature >= 0");
+            if (t > MaxKelvin) throw Error(kv, "temperature", $"{t:G6} K is beyond the physical range (at most {MaxKelvin:G3} K, 1 keV)");
             return t;
         }
 
@@ -249,13 +286,14 @@ public static class ScanFileReader
                 if (values.Length == 0) throw Error(valuesKv!, "axis.values", "zero points: the list is empty");
                 if (values.Any(v => !double.IsFinite(v))) throw Error(valuesKv!, "axis.values", "values must be finite");
                 if (values.Distinct().Count() != values.Length) throw Error(valuesKv!, "axis.values", "values repeat");
-                CheckTemperature(isT, values, valuesKv!);
+                CheckTemperature(isT, values, valuesKv!, kelvinPerUnit);
                 return new ScanAxis(name, values, AxisSpacing.Explicit, free, kelvinPerUnit, isT ? unit ?? "K" : "");
             }
             if (from is null || to is null || points is null)
                 throw Error(table, "axis." + (from is null ? "from" : to is null ? "to" : "points"),
                             $"axis '{name}' needs from, to and points (or values = [...])");
             if (points < 1) throw Error(pointsKv!, "axis.points", $"zero points: points = {points} must be at least 1");
+            if (points > MaxAxisPoints) throw Error(pointsKv!, "axis.points", $"points = {points} is more than {MaxAxisPoints} along one axis");
             if (points > 1 && from == to) throw Error(table, "axis.to", "from equals to with more than one point");
             var kind = (spacing ?? "linear") switch
             {
@@ -268,13 +306,15 @@ public static class ScanFileReader
             var grid = kind == AxisSpacing.Log
                 ? ScanAxis.Logarithmic(from.Value, to.Value, points.Value)
                 : ScanAxis.Linear(from.Value, to.Value, points.Value);
-            CheckTemperature(isT, grid, table);
+            CheckTemperature(isT, grid, table, kelvinPerUnit);
             return new ScanAxis(name, grid, kind, free, kelvinPerUnit, isT ? unit ?? "K" : "");
         }
 
-        private void CheckTemperature(bool isT, double[] values, SyntaxNode node)
+        private void CheckTemperature(bool isT, double[] values, SyntaxNode node, double unitKelvin)
         {
             if (isT && values.Any(v => v < 0)) throw Error(node, "axis.values", "temperatures must be >= 0");
+            if (isT && values.Any(v => v * (unitKelvin > 0 ? unitKelvin : 1) > MaxKelvin))
+                throw Error(node, "axis.values", $"temperatures beyond {MaxKelvin:G3} K (1 keV) are outside the physical range");
         }
 
         public ScanSolverSettings Solver(TableSyntaxBase table)
@@ -285,9 +325,9 @@ public static class ScanFileReader
                 string key = KeyName(kv), field = "solver." + key;
                 s = key switch
                 {
-                    "mesh" => s with { Mesh = Positive(kv, field, Integer(kv, field)) },
-                    "tolerance" => s with { Tolerance = Number(kv, field) is > 0 and var t ? t : throw Error(kv, field, "must be > 0") },
-                    "max_iterations" => s with { MaxIterations = Positive(kv, field, Integer(kv, field)) },
+                    "mesh" => s with { Mesh = InRange(kv, field, Integer(kv, field), Models.PhysicalRange.MinMesh, Models.PhysicalRange.MaxMesh) },
+                    "tolerance" => s with { Tolerance = Number(kv, field) is > 0 and var t && double.IsFinite(t) ? t : throw Error(kv, field, "must be a finite number > 0") },
+                    "max_iterations" => s with { MaxIterations = InRange(kv, field, Integer(kv, field), 1, Models.PhysicalRange.MaxIterations) },
                     "shifted" => s with { Shifted = Boolean(kv, field) },
                     _ => throw Error(kv, field, "unknown key" + ClosestName.Hint(key, SolverKeys)),
                 };
@@ -295,7 +335,8 @@ public static class ScanFileReader
             return s;
         }
 
-        private int Positive(KeyValueSyntax kv, string field, int v) => v >= 1 ? v : throw Error(kv, field, "must be at least 1");
+        private int InRange(KeyValueSyntax kv, string field, int v, int lo, int hi) =>
+            v >= lo && v <= hi ? v : throw Error(kv, field, $"{v} is outside {lo}..{hi}");
 
         public ScanColumnRequest Columns(TableSyntaxBase table)
         {

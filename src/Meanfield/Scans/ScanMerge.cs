@@ -72,7 +72,7 @@ public static class ScanMerge
         bool write = duplicated.Count == 0 && (missing.Count == 0 || allowIncomplete);
         if (write)
         {
-            var schema = first.Schema.WithSolverState(false);
+            var schema = first.Schema.WithSolverState(false).WithErrorColumn();
             var meta = new Dictionary<string, string>(first.Metadata)
             {
                 [ScanMetadata.Shard] = ShardSpec.Whole.ToString(),

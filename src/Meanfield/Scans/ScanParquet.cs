@@ -14,10 +14,11 @@ public static class ScanParquet
     public static async Task WriteAsync(string path, ScanSchema schema, IReadOnlyList<ScanRow> rows,
                                         IReadOnlyDictionary<string, string> metadata, CancellationToken ct = default)
     {
-        string tmp = path + ".tmp";
+        string full = System.IO.Path.GetFullPath(path);
+        string tmp = Output.AtomicFile.TemporarySibling(full);
         try
         {
-            await using (var stream = new FileStream(tmp, FileMode.Create, FileAccess.Write, FileShare.None))
+            await using (var stream = new FileStream(tmp, FileMode.CreateNew, FileAccess.Write, FileShare.None))
             {
                 await using (var writer = await ParquetWriter.CreateAsync(schema.Parquet, stream, cancellationToken: ct))
                 {
@@ -32,7 +33,12 @@ public static class ScanParquet
                 }
                 stream.Flush(flushToDisk: true);
             }
-            File.Move(tmp, path, overwrite: true);
+            File.Move(tmp, full, overwrite: true);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            TryDelete(tmp);
+            throw Output.AtomicFile.CannotWrite(path, System.IO.Path.GetDirectoryName(full) ?? ".", tmp, e);
         }
         catch
         {
@@ -41,7 +47,20 @@ public static class ScanParquet
         }
     }
 
+    /// <summary>Reads a scan table (rows and metadata).</summary>
+    /// <exception cref="ScanUnreadableError">The file is not Parquet, is truncated or damaged.</exception>
+    /// <exception cref="ScanError">The file is Parquet but not a scan table.</exception>
     public static async Task<ScanTable> ReadAsync(string path, CancellationToken ct = default)
+    {
+        if (!File.Exists(path)) throw new FileNotFoundException($"{path}: scan table not found", path);
+        try { return await ReadCheckedAsync(path, ct); }
+        catch (Exception e) when (e is not (ScanError or OperationCanceledException or FileNotFoundException or UnauthorizedAccessException))
+        {
+            throw new ScanUnreadableError(path, e);
+        }
+    }
+
+    private static async Task<ScanTable> ReadCheckedAsync(string path, CancellationToken ct)
     {
         await using var stream = File.OpenRead(path);
         await using var reader = await ParquetReader.CreateAsync(stream, cancellationToken: ct);

@@ -20,6 +20,9 @@ public sealed record ScanPoint(
     IReadOnlyList<KeyValuePair<string, string>> Overrides,
     double TemperatureK)
 {
+    /// <summary>"point 17 (V = 300, ratio = 0.5)": the point in messages.</summary>
+    public string Label => $"point {Id} ({string.Join(", ", AxisNames.Select((n, i) => string.Create(System.Globalization.CultureInfo.InvariantCulture, $"{n} = {AxisValues[i]:G8}")))})";
+
     /// <summary>Value of the named axis at this point.</summary>
     public double Axis(string name)
     {

@@ -18,4 +18,10 @@ public sealed record ScanRunOptions
     public TimeSpan FlushInterval { get; init; } = TimeSpan.FromSeconds(30);
     /// <summary>When a warm-started solve does not converge, solve again from a cold start.</summary>
     public bool RetryColdOnFailure { get; init; } = true;
+    /// <summary>
+    /// Told, in one line each, what the run did on its own that the user should know: a point whose solve threw
+    /// (written with converged = false and the error), a damaged chunk set aside, leftovers of a finished run removed.
+    /// Called from the solving threads; null to ignore.
+    /// </summary>
+    public Action<string>? Notice { get; init; }
 }

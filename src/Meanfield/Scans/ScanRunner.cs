@@ -14,8 +14,15 @@ public static class ScanRunner
     {
         var clock = Stopwatch.StartNew();
         var ids = grid.Shard(options.Shard);
+        output.RemoveStaleTemporaries();
+        if (output.HasChunks && await output.IsFinishedAsync(ids, options.Shard, ct))
+        {
+            // Stopped between the final rename and the removal of the chunks: the result is complete, the chunks are left over.
+            output.RemoveChunks();
+            options.Notice?.Invoke($"{output.Path} is complete (an earlier run was stopped while cleaning up); removed its leftover chunks {output.PartsDirectory}");
+        }
         if (output.HasChunks && !options.Resume)
-            throw new ScanError($"{output.PartsDirectory} holds chunks of an interrupted run: resume it, or delete the directory to start over");
+            throw new ScanError($"{output.PartsDirectory} holds chunks of an interrupted run: rerun the same command with --resume to continue it, or delete {output.PartsDirectory} to start over");
 
         if (options.Resume && !output.HasChunks && File.Exists(output.Path))
         {
@@ -23,10 +30,10 @@ public static class ScanRunner
             if (finished.ScanSha256 != output.Provenance.ScanSha256 || finished.ModelSha256 != output.Provenance.ModelSha256)
                 throw new ScanError($"{output.Path} exists and belongs to a different scan or model; remove it first");
             return new ScanSummary(output.Path, ids.Count, 0, finished.Rows.Count,
-                                   finished.Rows.Count(r => !r.Result.Converged), clock.Elapsed);
+                                   finished.Rows.Count(r => !r.Result.Converged), clock.Elapsed) { Failed = finished.Rows.Count(r => r.Result.Error is not null) };
         }
 
-        var (schema, previous) = await output.LoadChunksAsync(options.Shard, ct);
+        var (schema, previous) = await output.LoadChunksAsync(options.Shard, ct, options.Notice);
         var done = new Dictionary<int, ScanRow>();
         var inShard = new HashSet<int>(ids);
         foreach (var row in previous)
@@ -55,10 +62,25 @@ public static class ScanRunner
 
         var rows = previous.Where(r => inShard.Contains(r.PointId)).DistinctBy(r => r.PointId).Concat(collector.Written).ToList();
         if (rows.Count != ids.Count) throw new ScanError($"internal: {rows.Count} rows for {ids.Count} points");
-        var finalSchema = (collector.Schema ?? new ScanSchema(grid.Axes.Select(a => a.Name).ToList(), [], [])).WithSolverState(false);
+        var finalSchema = (collector.Schema ?? new ScanSchema(grid.Axes.Select(a => a.Name).ToList(), [], [])).WithSolverState(false).WithErrorColumn();
         await output.FinalizeAsync(finalSchema, rows, collector.Metadata(finalSchema), CancellationToken.None);
         return new ScanSummary(output.Path, ids.Count, collector.Written.Count, done.Count,
-                               rows.Count(r => !r.Result.Converged), clock.Elapsed);
+                               rows.Count(r => !r.Result.Converged), clock.Elapsed) { Failed = rows.Count(r => r.Result.Error is not null) };
+    }
+
+    /// <summary>
+    /// One solve; an exception other than cancellation becomes a failed result carrying its message, so that one bad
+    /// point (an extreme value, a tie that divides by zero there) is flagged in its row and the scan goes on.
+    /// </summary>
+    private static ScanPointResult Attempt(PointSolver solver, ScanPoint point, ScanPointResult? warm, CancellationToken ct)
+    {
+        try { return solver(point, warm, ct); }
+        catch (Exception e) when (!(e is OperationCanceledException && ct.IsCancellationRequested))
+        {
+            string text = e is ScanError or Models.ModelError or ArgumentException or InvalidDataException ? e.Message : $"{e.GetType().Name}: {e.Message}";
+            if (!text.Contains(point.Label, StringComparison.Ordinal)) text += $" (at {point.Label})";
+            return new ScanPointResult { Converged = false, Error = text };
+        }
     }
 
     private static async Task RunSegmentAsync(ScanGrid grid, int[] segment, IReadOnlyDictionary<int, ScanRow> done,
@@ -77,13 +99,15 @@ public static class ScanRunner
             ct.ThrowIfCancellationRequested();
             var point = grid.Point(id);
             var watch = Stopwatch.StartNew();
-            var result = solver(point, warm, ct);
+            var result = Attempt(solver, point, warm, ct);
             bool warmStarted = warm is not null;
             if (!result.Converged && warmStarted && options.RetryColdOnFailure)
             {
-                var cold = solver(point, null, ct);
-                if (cold.Converged || !(result.ResidualNorm <= cold.ResidualNorm)) { result = cold; warmStarted = false; }
+                var cold = Attempt(solver, point, null, ct);
+                if (cold.Converged || (cold.Error is null && (result.Error is not null || !(result.ResidualNorm <= cold.ResidualNorm))))
+                { result = cold; warmStarted = false; }
             }
+            if (result.Error is not null) options.Notice?.Invoke($"{point.Label} failed and is written with converged = false: {result.Error}");
             var row = new ScanRow(id, options.Shard.Index, point.AxisValues, ScanSchema.ParametersOf(point, result),
                                   point.TemperatureK, result, watch.Elapsed.TotalSeconds, warmStarted);
             await collector.AddAsync(point, row);

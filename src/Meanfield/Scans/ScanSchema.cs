@@ -15,16 +15,19 @@ public sealed class ScanSchema
     public IReadOnlyList<string> GroupNames { get; }
     /// <summary>Whether the solver's warm-start payload is stored (chunk files, for resume); final files drop it.</summary>
     public bool IncludeSolverState { get; }
+    /// <summary>Whether the text column "error" (why a point's solve threw) is present; files of older versions lack it.</summary>
+    public bool IncludeErrorColumn { get; }
     public IReadOnlyList<ScanColumn> Columns { get; }
     public ParquetSchema Parquet { get; }
 
     public ScanSchema(IReadOnlyList<string> axisNames, IReadOnlyList<string> parameterNames,
-                      IReadOnlyList<string> groupNames, bool includeSolverState = false)
+                      IReadOnlyList<string> groupNames, bool includeSolverState = false, bool includeErrorColumn = true)
     {
         AxisNames = axisNames;
         ParameterNames = parameterNames;
         GroupNames = groupNames;
         IncludeSolverState = includeSolverState;
+        IncludeErrorColumn = includeErrorColumn;
         Columns = ScanColumns.Build(this);
         var names = new HashSet<string>();
         foreach (var c in Columns)
@@ -63,7 +66,11 @@ public sealed class ScanSchema
     }
 
     public ScanSchema WithSolverState(bool include) =>
-        include == IncludeSolverState ? this : new ScanSchema(AxisNames, ParameterNames, GroupNames, include);
+        include == IncludeSolverState ? this : new ScanSchema(AxisNames, ParameterNames, GroupNames, include, IncludeErrorColumn);
+
+    /// <summary>The same layout with the "error" column (new files always carry it, also when resuming older chunks).</summary>
+    public ScanSchema WithErrorColumn() =>
+        IncludeErrorColumn ? this : new ScanSchema(AxisNames, ParameterNames, GroupNames, IncludeSolverState, true);
 
     /// <summary>Column name to unit, as JSON, for the file metadata.</summary>
     public string UnitsJson(string energyUnit)
@@ -79,6 +86,7 @@ public sealed class ScanSchema
         ["parameters"] = new JsonArray(ParameterNames.Select(n => (JsonNode)JsonValue.Create(n)!).ToArray()),
         ["groups"] = new JsonArray(GroupNames.Select(n => (JsonNode)JsonValue.Create(n)!).ToArray()),
         ["solver_state"] = IncludeSolverState,
+        ["error_column"] = IncludeErrorColumn,
     }.ToJsonString();
 
     public static ScanSchema FromJson(string json)
@@ -86,7 +94,7 @@ public sealed class ScanSchema
         var o = JsonNode.Parse(json) ?? throw new JsonException("empty schema description");
         static List<string> Names(JsonNode? n) => n!.AsArray().Select(x => x!.GetValue<string>()).ToList();
         return new ScanSchema(Names(o["axes"]), Names(o["parameters"]), Names(o["groups"]),
-                              o["solver_state"]?.GetValue<bool>() ?? false);
+                              o["solver_state"]?.GetValue<bool>() ?? false, o["error_column"]?.GetValue<bool>() ?? false);
     }
 
     public bool SameLayout(ScanSchema other) =>

@@ -7,4 +7,8 @@ namespace Meanfield.Scans;
 /// <param name="Resumed">Points recovered from chunk files of an earlier run.</param>
 /// <param name="NonConverged">Rows with converged = false.</param>
 /// <param name="Elapsed">Wall time of this run.</param>
-public sealed record ScanSummary(string OutputPath, int Total, int Solved, int Resumed, int NonConverged, TimeSpan Elapsed);
+public sealed record ScanSummary(string OutputPath, int Total, int Solved, int Resumed, int NonConverged, TimeSpan Elapsed)
+{
+    /// <summary>Rows whose solve threw (a subset of <see cref="NonConverged"/>), with their error text in the "error" column.</summary>
+    public int Failed { get; init; }
+}

@@ -107,10 +107,7 @@ public sealed class Solution
         if (!File.Exists(path)) throw new InvalidDataException($"{path}: solution file not found");
         var doc = SolutionDocument.Load(path);
         if (!doc.Converged) throw new InvalidDataException($"{path}: the solution did not converge; it cannot be used");
-        var overrides = doc.Parameters.ToDictionary(p => p.Key, p => p.Value.ToString("R", CultureInfo.InvariantCulture));
-        foreach (var kv in extraOverrides ?? new Dictionary<string, string>()) overrides[kv.Key] = kv.Value;
-        if (!File.Exists(doc.ModelPath)) throw new InvalidDataException($"{path}: its model file '{doc.ModelPath}' is not found");
-        var model = ModelBinder.Bind(ModelFile.Load(doc.ModelPath), overrides);
+        var model = doc.BindModel(path, extraOverrides);
         var amp = doc.AmplitudesFor(model, path);
         var ham = new RenormalizedHamiltonian(new BlochHamiltonian(model), amp);
         KMesh? mesh = model.IsMomentumFree || doc.Sampling.Mesh is not int n ? null : new KMesh(model.Lattice, n, doc.Sampling.Shifted ?? true);

@@ -117,7 +117,8 @@ public class MalformedModelTests
     [Fact]
     public void Pauli_terms_need_two_flavours()
     {
-        var toml = Break("electrons_per_cell = 2", "electrons_per_cell = 1\nflavours = 1")
+        // One flavour leaves room for the boson only with Q < 1.
+        var toml = Break("electrons_per_cell = 2", "electrons_per_cell = 1\nflavours = 1").Replace("level = \"ef\"", "level = \"ef\"\nconstraint = 0.5")
                    + "\n[[onsite]]\norbital = \"A:d\"\nspin = { z = \"1\" }  # here\n";
         Check(toml, "# here", "onsite[1].spin", says: "flavours = 2");
     }
