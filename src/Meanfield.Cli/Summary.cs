@@ -25,6 +25,7 @@ public static class Summary
         sb.AppendLine($"branch       {(sp.Branch == SaddlePointBranch.Kondo ? "Kondo (r > 0: coherent heavy quasiparticles)" : "decoupled (r = 0: local moments)")}");
         sb.AppendLine($"temperature  {sp.Temperature:G6} {u} = {sp.Temperature * kelvin:G6} K");
         sb.AppendLine($"sampling     {sp.Sampling}");
+        if (sp.Symmetry is { } sym) sb.AppendLine($"symmetry     {sym}");
         sb.AppendLine($"mu           {sp.Mu:G10} {u}");
         sb.AppendLine($"free energy  {sp.FreeEnergy:G10} {u} per cell" + (sp.DecoupledFreeEnergy is { } fd && sp.Branch == SaddlePointBranch.Kondo ? $"  (decoupled: {fd:G10})" : ""));
         sb.AppendLine($"electrons    {sp.ElectronsPerCell:G6} per cell");
