@@ -24,7 +24,7 @@ public static class ModelFile
     private static readonly string[] StaggeredKeys = ["orbital", "amplitude", "signs"];
     private static readonly string[] ZeemanKeys = ["field", "acts_on"];
     private static readonly string[] SpinOrbitKeys = ["orbital", "amplitude"];
-    private static readonly string[] SolverKeys = ["temperature", "mesh", "shifted", "tolerance", "max_iterations"];
+    private static readonly string[] SolverKeys = ["temperature", "mesh", "shifted", "tolerance", "max_iterations", "symmetry"];
 
     /// <summary>Lattice kinds by their model-file names.</summary>
     public static readonly IReadOnlyDictionary<string, LatticeKind> LatticeKinds = new Dictionary<string, LatticeKind>
@@ -307,7 +307,11 @@ public static class ModelFile
         if (tolerance is <= 0) throw new ModelError(t.Entry("tolerance")!.Value.Location, t.Field("tolerance"), "tolerance must be positive");
         long? iterations = t.Integer("max_iterations");
         if (iterations is < 1) throw new ModelError(t.Entry("max_iterations")!.Value.Location, t.Field("max_iterations"), "max_iterations must be positive");
-        return new SolverHints(text, temperature, (int?)mesh, t.Boolean("shifted"), tolerance, (int?)iterations);
+        string? symmetry = t.String("symmetry");
+        if (symmetry is not null && symmetry.Trim().Length == 0)
+            throw new ModelError(t.Entry("symmetry")!.Value.Location, t.Field("symmetry"), "write \"auto\", \"none\" or operations such as \"3[111],m[1-10]\"");
+        return new SolverHints(text, temperature, (int?)mesh, t.Boolean("shifted"), tolerance, (int?)iterations,
+                               symmetry, t.Entry("symmetry")?.Value.Location);
     }
 
     /// <summary>"2 K", "0.5 meV", "1e-3 eV" or a bare number in the model's energy unit, converted to that unit.</summary>

@@ -58,15 +58,16 @@ public sealed class IrreducibleMesh
     }
 
     /// <summary>
-    /// Wedge points expected before building it: full / actions plus the points with a smaller orbit (they lie on the
-    /// symmetry planes and axes, at most about actions x N^2), capped at the full mesh. Uses no memory over the mesh.
+    /// Wedge points expected before building it: full / actions plus the extra points of smaller orbits. Those lie on
+    /// mirror planes (at most actions/2 planes of N^2 points, each orbit of actions/2 points, so at most N^2 extra) and
+    /// axes; 2 N^2 bounds both. Capped at the full mesh. Uses no memory over the mesh.
     /// </summary>
     public static long EstimateCount(KMesh mesh, SymmetryGroup group)
     {
         long full = (long)mesh.N1 * mesh.N2 * mesh.N3;
         int actions = Actions(mesh, group).Length;
         long plane = (long)Math.Max(mesh.N1, mesh.N2) * Math.Max(mesh.N2, mesh.N3);
-        return Math.Min(full, full / actions + (actions > 1 ? actions * plane : 0));
+        return Math.Min(full, full / actions + (actions > 1 ? 2 * plane : 0));
     }
 
     /// <summary>

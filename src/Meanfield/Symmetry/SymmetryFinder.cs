@@ -80,7 +80,8 @@ internal sealed class SymmetryFinder
         bool anyPermutation = false;
         foreach (var (map, problem) in OrbitalMaps(p))
         {
-            if (map is null) { if (reason.Length == 0) reason = problem; continue; }
+            // Prefer the most telling reason: a group swapped or a missing orbital over a site landing nowhere.
+            if (map is null) { if (reason.Length == 0 || !problem.EndsWith("no site", StringComparison.Ordinal)) reason = problem; continue; }
             anyPermutation = true;
             foreach (var flavour in FlavourCandidates(p, timeReversal))
             {
