@@ -45,6 +45,7 @@ internal sealed class StateDerivatives
     }
 
     /// <summary>Adds one k-point (or DOS node) of weight <paramref name="weight"/>: energies, eigenvectors (columns), bare S, boson scales.</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)] // hot loop: skip tier-0 code
     public void Add(double weight, ReadOnlySpan<double> e, ReadOnlySpan<Complex> v, ReadOnlySpan<Complex> s, ReadOnlySpan<double> scale,
                     double mu, double t)
     {

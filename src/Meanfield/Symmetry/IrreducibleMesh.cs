@@ -88,6 +88,7 @@ public sealed class IrreducibleMesh
     }
 
     /// <summary>Image of a full-mesh index under action <paramref name="a"/>.</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)] // hot loop: skip tier-0 code
     private int Apply(MeshAction a, int index)
     {
         int n1 = Mesh.N1, n2 = Mesh.N2, n3 = Mesh.N3;
