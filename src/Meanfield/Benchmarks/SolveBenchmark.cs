@@ -13,6 +13,8 @@ namespace Meanfield.Benchmarks;
 /// <param name="KPoints">k-points of the mesh.</param>
 /// <param name="Bands">Size of H(k).</param>
 /// <param name="SolveSeconds">Wall time of the solve (s).</param>
+/// <param name="SolveCpuSeconds">Processor time of the process during the solve, all threads (s): less sensitive to other
+/// load on the machine than the wall time.</param>
 /// <param name="Iterations">Broyden iterations.</param>
 /// <param name="ZonePasses">Passes over the fine mesh's wedge (each diagonalises every wedge point; the decoupled branch's
 /// energies-only pass included).</param>
@@ -27,7 +29,7 @@ namespace Meanfield.Benchmarks;
 /// <param name="BytesPerPass">Bytes allocated by one solver pass, all threads (GC.GetTotalAllocatedBytes).</param>
 /// <param name="PeakWorkingSetBytes">Peak working set of the process so far.</param>
 /// <param name="Converged">Whether the solve converged.</param>
-public sealed record SolveBenchmarkResult(int Mesh, int KPoints, int Bands, double SolveSeconds, int Iterations, int ZonePasses,
+public sealed record SolveBenchmarkResult(int Mesh, int KPoints, int Bands, double SolveSeconds, double SolveCpuSeconds, int Iterations, int ZonePasses,
                                           int CoarsePasses, double MicrosecondsPerKPointPass, double BarePassSeconds,
                                           double BareWedgeSeconds, double PassSeconds, double JacobianSeconds, int WedgePoints,
                                           int SymmetryOrder, long BytesPerPass, long PeakWorkingSetBytes, bool Converged)
@@ -43,9 +45,13 @@ public static class SolveBenchmark
     {
         var solver = new SaddlePointSolver(model, settings);
         if (solver.StateSum is not MeshStateSum sum) throw new ArgumentException("the benchmark needs a lattice with momentum (a k-mesh)");
+        using var self = Process.GetCurrentProcess();
+        var cpu0 = self.TotalProcessorTime;
         var clock = Stopwatch.StartNew();
         var sp = solver.Solve(ct);
         double solveSeconds = clock.Elapsed.TotalSeconds;
+        self.Refresh();
+        double cpu = (self.TotalProcessorTime - cpu0).TotalSeconds;
 
         // One more pass at the solution: warm caches, then measure time and allocation of the best of three.
         sum.Fill(sp.Amplitudes);
@@ -67,9 +73,8 @@ public static class SolveBenchmark
         var wedge = sum.Irreducible.Representatives.ToArray();
         double bare = Math.Min(BarePass(solver.Bare, sum.Mesh, all), BarePass(solver.Bare, sum.Mesh, all));
         double bareWedge = Math.Min(BarePass(solver.Bare, sum.Mesh, wedge), BarePass(solver.Bare, sum.Mesh, wedge));
-        using var self = Process.GetCurrentProcess();
         self.Refresh();
-        return new SolveBenchmarkResult(settings.Mesh, sum.Mesh.Count, solver.Bare.Size, solveSeconds, sp.Iterations, sp.ZonePasses,
+        return new SolveBenchmarkResult(settings.Mesh, sum.Mesh.Count, solver.Bare.Size, solveSeconds, cpu, sp.Iterations, sp.ZonePasses,
             solver.CoarsePasses, 1e6 * solveSeconds / Math.Max(1, sp.ZonePasses) / sum.Irreducible.Count, bare, bareWedge, pass,
             jacobian, sum.Irreducible.Count, sum.Irreducible.Group.Order, bytes, self.PeakWorkingSet64, sp.Converged);
     }
