@@ -31,7 +31,10 @@ public sealed partial class SaddlePointSolver
     public BlochHamiltonian Bare { get; }
     public IStateSum StateSum => _sum;
 
-    public SaddlePointSolver(BoundModel model, SolverSettings settings)
+    public SaddlePointSolver(BoundModel model, SolverSettings settings) : this(model, settings, null) { }
+
+    /// <summary>A solver that reuses a symmetry group already found for the same model (the half-mesh start).</summary>
+    private SaddlePointSolver(BoundModel model, SolverSettings settings, SymmetryGroup? group)
     {
         settings.Validate();
         _model = model; _settings = settings;
@@ -57,7 +60,8 @@ public sealed partial class SaddlePointSolver
         if (model.IsMomentumFree) _sum = new LocalDosStateSum(Bare, settings.DosNodes);
         else
         {
-            var group = SymmetryGroup.Find(Bare, settings.Symmetry);
+            group ??= SymmetryGroup.Find(Bare, settings.Symmetry);
+            _group = group;
             bool keep = MeshMemory.Check(model, settings, group, out var mesh);
             var sum = new MeshStateSum(Bare, mesh, group, keep && settings.AnalyticJacobian);
             _sum = sum;
@@ -68,6 +72,7 @@ public sealed partial class SaddlePointSolver
     }
 
     private readonly MeshReduction? _reduction;
+    private readonly SymmetryGroup? _group;
 
     /// <summary>How symmetry reduced the mesh (null for momentum-free lattices).</summary>
     public MeshReduction? Reduction => _reduction;

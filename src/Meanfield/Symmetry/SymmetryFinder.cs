@@ -86,7 +86,7 @@ internal sealed class SymmetryFinder
             foreach (var flavour in FlavourCandidates(p, timeReversal))
             {
                 var u = Build(map, flavour);
-                var (defect, where) = Defect(p, timeReversal, u);
+                var (defect, where) = Defect(p, timeReversal, u, stopAbove: RelativeTolerance);
                 if (defect < best) { best = defect; reason = where; }
                 if (defect <= RelativeTolerance)
                     return (new SymmetryOperation(p, timeReversal, u), new OperationCheck(name, true, defect, ""));
@@ -188,12 +188,15 @@ internal sealed class SymmetryFinder
         return u;
     }
 
-    /// <summary>Largest deviation relative to the model's scale, and where it sits (basis pair and part).</summary>
-    internal (double Defect, string Where) Defect(PointOperation p, bool timeReversal, Complex[] u)
+    /// <summary>
+    /// Largest deviation relative to the model's scale, and where it sits (basis pair and part); once it exceeds
+    /// <paramref name="stopAbove"/> the remaining samples are skipped (the value is then a lower bound).
+    /// </summary>
+    internal (double Defect, string Where) Defect(PointOperation p, bool timeReversal, Complex[] u, double stopAbove = double.PositiveInfinity)
     {
         double worst = 0; string where = "";
         var t1 = new Complex[_n * _n]; var t2 = new Complex[_n * _n];
-        for (int s = 0; s < Samples; s++)
+        for (int s = 0; s < Samples && worst <= stopAbove; s++)
         {
             var k = p.Apply(_k[s]);
             if (timeReversal) k = -k;
