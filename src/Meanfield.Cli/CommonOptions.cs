@@ -93,6 +93,7 @@ public static class CommonOptions
             Shifted = hints?.Shifted ?? true,
             Tolerance = hints?.Tolerance ?? 1e-10,
             MaxIterations = hints?.MaxIterations ?? 100,
+            Symmetry = hints?.Symmetry is { } sym ? Symmetry.SymmetryRequest.Parse(sym) : Symmetry.SymmetryRequest.Auto,
         };
         try { settings.Validate(); }
         catch (ArgumentException e) { throw new UserInputException(e.Message); }

@@ -26,6 +26,7 @@ public static class Summary
         sb.AppendLine($"branch       {(sp.Branch == SaddlePointBranch.Kondo ? "Kondo (r > 0: coherent heavy quasiparticles)" : "decoupled (r = 0: local moments)")}");
         sb.AppendLine($"temperature  {sp.Temperature:G6} {u} = {sp.Temperature * kelvin:G6} K");
         sb.AppendLine($"sampling     {sp.Sampling}");
+        if (sp.Symmetry is { } sym) sb.AppendLine($"symmetry     {sym}");
         double mu = solution?.Mu ?? sp.Mu;
         sb.AppendLine($"mu           {mu:G10} {u}" + (solution is null ? "" : $"  ({Output.SolutionDocument.RuleName(solution.MuRule)})"));
         sb.AppendLine($"free energy  {sp.FreeEnergy:G10} {u} per cell" + (sp.DecoupledFreeEnergy is { } fd && sp.Branch == SaddlePointBranch.Kondo ? $"  (decoupled: {fd:G10})" : ""));

@@ -37,12 +37,13 @@ public static class BenchCommand
             if (!parse.GetValue(skipSolve))
             {
                 var list = ParseMeshes(parse.GetValue(meshes)!);
-                o.WriteLine($"{"mesh",5} {"k-points",9} {"solve s",8} {"iter",5} {"passes",6} {"us/k/pass",10} {"pass s",8} {"bare s",8} {"pass/bare",9} {"bytes/pass",11} {"peak WS MB",10} conv");
+                o.WriteLine("pass: one solver pass on the wedge; bare full/wedge: assemble + diagonalise only, on every k / on the wedge; jac: analytic Jacobian from the kept eigenvectors");
+                o.WriteLine($"{"mesh",5} {"k-points",9} {"wedge",7} {"factor",6} {"group",5} {"solve s",8} {"cpu s",6} {"iter",4} {"fine",4} {"coarse",6} {"pass s",8} {"bare full",9} {"bare wedge",10} {"pass/bare",9} {"jac s",7} {"bytes/pass",10} {"peak MB",7} conv");
                 foreach (int m in list)
                 {
                     var r = SolveBenchmark.Run(bound, settings with { Mesh = m }, ct);
                     o.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                        $"{r.Mesh,5} {r.KPoints,9} {r.SolveSeconds,8:F3} {r.Iterations,5} {r.ZonePasses,6} {r.MicrosecondsPerKPointPass,10:F2} {r.PassSeconds,8:F4} {r.BarePassSeconds,8:F4} {r.PassSeconds / r.BarePassSeconds,9:F2} {r.BytesPerPass,11} {r.PeakWorkingSetBytes / 1048576.0,10:F0} {(r.Converged ? "yes" : "NO")}"));
+                        $"{r.Mesh,5} {r.KPoints,9} {r.WedgePoints,7} {r.ReductionFactor,6:F2} {r.SymmetryOrder,5} {r.SolveSeconds,8:F3} {r.SolveCpuSeconds,6:F2} {r.Iterations,4} {r.ZonePasses,4} {r.CoarsePasses,6} {r.PassSeconds,8:F4} {r.BarePassSeconds,9:F4} {r.BareWedgeSeconds,10:F4} {r.PassSeconds / r.BareWedgeSeconds,9:F2} {r.JacobianSeconds,7:F4} {r.BytesPerPass,10} {r.PeakWorkingSetBytes / 1048576.0,7:F0} {(r.Converged ? "yes" : "NO")}"));
                 }
             }
             if (parse.GetValue(scan))

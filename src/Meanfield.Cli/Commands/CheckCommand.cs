@@ -15,6 +15,12 @@ public static class CheckCommand
         {
             var bound = CommonOptions.LoadModel(parse.GetValue(model)!, CommonOptions.ParseSets(parse.GetValue(set)));
             foreach (var line in ModelSummary.Describe(bound)) parse.InvocationConfiguration.Output.WriteLine(line);
+            if (bound.Solver?.Mesh is not null && !bound.IsMomentumFree)
+            {
+                // The [solver] mesh must fit this machine: refused here, before any solve (the message gives the estimate).
+                var plan = Solver.MeshPlan.For(bound, CommonOptions.Settings(bound, null, null));
+                parse.InvocationConfiguration.Output.WriteLine($"mesh plan: {plan.Reduction}; about {Solver.MeshMemory.Gigabytes(plan.EstimatedBytes)}");
+            }
             parse.InvocationConfiguration.Output.WriteLine("ok: the model is valid");
             return ExitCodes.Success;
         });

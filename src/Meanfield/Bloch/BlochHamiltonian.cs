@@ -76,6 +76,7 @@ public sealed class BlochHamiltonian : IBlochSource
     /// Writes the fixed and the scaled parts of H(k) (row-major, Size x Size each, overwritten).
     /// <paramref name="k"/> is Cartesian in inverse angstrom.
     /// </summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)] // hot loop: skip tier-0 code
     public void AssembleParts(Vec3 k, Span<Complex> fixedPart, Span<Complex> scaledPart)
     {
         int n = _n, f = _f;

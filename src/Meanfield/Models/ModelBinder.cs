@@ -53,7 +53,21 @@ public static class ModelBinder
             SourceText = spec.SourceText, SourcePath = spec.SourceName, Solver = spec.Solver,
         };
         CheckHermitian(spec, model);
+        CheckSymmetry(model);
         return model;
+    }
+
+    /// <summary>Operations named in [solver] symmetry must be kept by the bound model (with these parameters).</summary>
+    private static void CheckSymmetry(BoundModel model)
+    {
+        if (model.Solver?.Symmetry is not { } text || model.IsMomentumFree) return;
+        var where = model.Solver.SymmetryLocation ?? new SourceLocation(model.SourcePath, null, null);
+        try
+        {
+            var request = Symmetry.SymmetryRequest.Parse(text);
+            if (request.Names is not null) Symmetry.SymmetryGroup.Find(new Bloch.BlochHamiltonian(model), request);
+        }
+        catch (ArgumentException e) { throw new ModelError(where, "solver.symmetry", e.Message); }
     }
 
     private static (Dictionary<string, Complex>, List<KeyValuePair<string, double>>) BindParameters(

@@ -24,7 +24,7 @@ public static class ModelFile
     private static readonly string[] StaggeredKeys = ["orbital", "amplitude", "signs"];
     private static readonly string[] ZeemanKeys = ["field", "acts_on"];
     private static readonly string[] SpinOrbitKeys = ["orbital", "amplitude"];
-    private static readonly string[] SolverKeys = ["temperature", "mesh", "shifted", "tolerance", "max_iterations"];
+    private static readonly string[] SolverKeys = ["temperature", "mesh", "shifted", "tolerance", "max_iterations", "symmetry"];
 
     /// <summary>Lattice kinds by their model-file names.</summary>
     public static readonly IReadOnlyDictionary<string, LatticeKind> LatticeKinds = new Dictionary<string, LatticeKind>
@@ -336,7 +336,11 @@ public static class ModelFile
         long? iterations = t.Integer("max_iterations");
         if (iterations is < 1 or > PhysicalRange.MaxIterations)
             throw new ModelError(t.Entry("max_iterations")!.Value.Location, t.Field("max_iterations"), $"max_iterations must be between 1 and {PhysicalRange.MaxIterations}, found {iterations}");
-        return new SolverHints(text, temperature, (int?)mesh, t.Boolean("shifted"), tolerance, (int?)iterations);
+        string? symmetry = t.String("symmetry");
+        if (symmetry is not null && symmetry.Trim().Length == 0)
+            throw new ModelError(t.Entry("symmetry")!.Value.Location, t.Field("symmetry"), "write \"auto\", \"none\" or operations such as \"3[111],m[1-10]\"");
+        return new SolverHints(text, temperature, (int?)mesh, t.Boolean("shifted"), tolerance, (int?)iterations,
+                               symmetry, t.Entry("symmetry")?.Value.Location);
     }
 
     /// <summary>"2 K", "0.5 meV", "1e-3 eV" or a bare number in the model's energy unit, converted to that unit.</summary>

@@ -37,6 +37,7 @@ public sealed class RenormalizedHamiltonian : IBlochSource
     }
 
     /// <summary>H_MF(k) into <paramref name="h"/>; on return <paramref name="scaled"/> holds the bare S(k) for derivatives.</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)] // hot loop: skip tier-0 code
     public void Assemble(Vec3 k, Span<Complex> h, Span<Complex> scaled)
     {
         int n = Size;

@@ -13,4 +13,10 @@ public interface IStateSum
     int Groups { get; }
     /// <summary>Fills the table for the given amplitudes; the table is reused between calls (no allocation per call).</summary>
     StateTable Fill(MeanFieldAmplitudes amplitudes);
+
+    /// <summary>
+    /// Energies only, for mu and Omega_band (the decoupled branch); f weights and slopes may be left zero. Defaults to a
+    /// full <see cref="Fill"/>.
+    /// </summary>
+    StateTable FillEnergies(MeanFieldAmplitudes amplitudes) => Fill(amplitudes);
 }

@@ -14,7 +14,7 @@ namespace Meanfield.Solver;
 /// At T &gt; 0 the integrands are smooth and the quadrature converges fast; at T = 0 in a metal the Fermi step sits
 /// between nodes and the error falls only as the square of the node spacing.
 /// </summary>
-public sealed class LocalDosStateSum : IStateSum
+public sealed class LocalDosStateSum : IStateSum, ISaddlePointDerivatives
 {
     private readonly BlochHamiltonian _bare;
     private readonly StateTable _table;
@@ -22,6 +22,9 @@ public sealed class LocalDosStateSum : IStateSum
     private readonly bool[] _conduction;
     private readonly int _n;
     private readonly int[] _fIndex, _fGroup;
+    private readonly Complex[] _vectors, _scaled;
+    private readonly bool _ffBonds;
+    private RenormalizedHamiltonian? _vectorsOf;
 
     public int Groups => _bare.GroupCount;
     public string Description { get; }
@@ -41,6 +44,9 @@ public sealed class LocalDosStateSum : IStateSum
         _conduction = new bool[_n];
         for (int i = 0; i < _n; i++) _conduction[i] = bare.GroupOfBasis[i] < 0;
         _table = new StateTable(eps.Length * _n, bare.GroupCount, uniformWeights: false);
+        _vectors = new Complex[eps.Length * _n * _n];
+        _scaled = new Complex[_n * _n];
+        _ffBonds = model.Hoppings.Any(h => model.Orbitals[h.From].Kind == Binding.OrbitalKind.Correlated && model.Orbitals[h.To].Kind == Binding.OrbitalKind.Correlated);
         for (int p = 0; p < eps.Length; p++)
             for (int m = 0; m < _n; m++) _table.Weight[p * _n + m] = weight[p];
         Description = $"{(model.Lattice.Kind == LatticeKind.FlatDos ? "flat" : "semi-elliptic")} DOS, D = {d:G6}, {eps.Length} quadrature nodes";
@@ -84,6 +90,8 @@ public sealed class LocalDosStateSum : IStateSum
         int n = _n;
         var h0 = new Complex[n * n]; var s = new Complex[n * n];
         ham.Assemble(Vec3.Zero, h0, s);
+        s.AsSpan().CopyTo(_scaled);
+        _vectorsOf = ham;
         int chunks = Math.Max(1, Environment.ProcessorCount);
         Parallel.For(0, chunks, c =>
         {
@@ -96,8 +104,27 @@ public sealed class LocalDosStateSum : IStateSum
                 for (int i = 0; i < n; i++) if (_conduction[i]) h[i * n + i] += _eps[p];
                 solver.Solve(h, e, v);
                 StateProjection.Store(_table, p * n, n, e, v, s, ham.Scale, _fIndex, _fGroup);
+                v.AsSpan().CopyTo(_vectors.AsSpan(p * n * n, n * n));
             }
         });
         return _table;
+    }
+
+    public bool TryDerivatives(double mu, double temperature, double[] result)
+    {
+        if (_vectorsOf is not { } ham) return false;
+        int n = _n, chunks = Math.Max(1, Environment.ProcessorCount);
+        var parts = new StateDerivatives[chunks];
+        Parallel.For(0, chunks, c =>
+        {
+            var acc = new StateDerivatives(n, _bare.GroupCount, _fIndex, _fGroup, _ffBonds);
+            int start = _eps.Length * c / chunks, end = _eps.Length * (c + 1) / chunks;
+            for (int p = start; p < end; p++)
+                acc.Add(_table.Weight[p * n], _table.Energy.AsSpan(p * n, n), _vectors.AsSpan(p * n * n, n * n), _scaled, ham.Scale, mu, temperature);
+            parts[c] = acc;
+        });
+        for (int c = 1; c < chunks; c++) parts[0].Merge(parts[c]);
+        parts[0].Result(result);
+        return true;
     }
 }

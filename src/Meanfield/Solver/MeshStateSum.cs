@@ -1,69 +1,166 @@
 using System.Numerics;
+using Meanfield.Binding;
 using Meanfield.Bloch;
 using Meanfield.Lattices;
 using Meanfield.Numerics;
 using Meanfield.Renormalization;
+using Meanfield.Symmetry;
 
 namespace Meanfield.Solver;
 
 /// <summary>
-/// Zone average on a Monkhorst-Pack mesh: every k-point is assembled, diagonalised and reduced to its band energies, f
-/// weights and dE/dr in parallel over threads, each with its own preallocated buffers (nothing is allocated per k).
+/// Zone average on a Monkhorst-Pack mesh, reduced to the irreducible wedge of the model's symmetry: every wedge point is
+/// assembled, diagonalised and reduced to its band energies, f weights and dE/dr in parallel over threads, each with its
+/// own preallocated buffers (nothing is allocated per k), and weighted by its orbit size / full mesh. The symmetry keeps
+/// every shell group (see <see cref="SymmetryGroup"/>), so the group-resolved sums are exact, not only the energies.
+/// Optionally the eigenvectors of the last fill are kept for the analytic Jacobian (<see cref="ISaddlePointDerivatives"/>).
 /// </summary>
-public sealed class MeshStateSum : IStateSum
+public sealed class MeshStateSum : IStateSum, ISaddlePointDerivatives
 {
     private readonly BlochHamiltonian _bare;
     private readonly StateTable _table;
     private readonly int[] _fIndex, _fGroup;
+    private readonly int[] _points;
     private readonly ThreadLocal<Workspace> _work;
+    private readonly Complex[]? _vectors;
+    private RenormalizedHamiltonian? _vectorsOf;
 
+    /// <summary>The full mesh.</summary>
     public KMesh Mesh { get; }
+    /// <summary>The wedge actually summed (the full mesh when the group is trivial).</summary>
+    public IrreducibleMesh Irreducible { get; }
     public int Groups => _bare.GroupCount;
-    public string Description => $"k-mesh {Mesh}";
+    public string Description => Irreducible.Count == Mesh.Count
+        ? $"k-mesh {Mesh}"
+        : $"k-mesh {Mesh}, {Irreducible.Count} irreducible points ({Irreducible.ActionCount} operations on k)";
     /// <summary>Seconds spent in diagonalisation during the last <see cref="Fill"/>, summed over threads.</summary>
     public double LastDiagonalisationSeconds { get; private set; }
+    /// <summary>Whether eigenvectors are kept for <see cref="TryDerivatives"/>.</summary>
+    public bool KeepsVectors => _vectors is not null;
 
-    public MeshStateSum(BlochHamiltonian bare, KMesh mesh)
+    /// <summary>A sum over the full mesh (no symmetry), eigenvectors not kept.</summary>
+    public MeshStateSum(BlochHamiltonian bare, KMesh mesh) : this(bare, mesh, SymmetryGroup.Trivial(bare), keepVectors: false) { }
+
+    /// <summary>A sum over the wedge of <paramref name="group"/>; <paramref name="keepVectors"/> keeps n^2 amplitudes per wedge point.</summary>
+    public MeshStateSum(BlochHamiltonian bare, KMesh mesh, SymmetryGroup group, bool keepVectors)
     {
         _bare = bare; Mesh = mesh;
-        int n = bare.Size;
-        _table = new StateTable(mesh.Count * n, bare.GroupCount, uniformWeights: true);
-        Array.Fill(_table.Weight, 1.0 / mesh.Count);
+        Irreducible = new IrreducibleMesh(mesh, group);
+        int n = bare.Size, count = Irreducible.Count;
+        _points = Irreducible.Representatives.ToArray();
+        _table = new StateTable(count * n, bare.GroupCount, uniformWeights: true);
+        var mult = Irreducible.Multiplicity;
+        for (int w = 0; w < count; w++)
+        {
+            double weight = mult[w] / (double)mesh.Count;
+            for (int m = 0; m < n; m++) _table.Weight[w * n + m] = weight;
+        }
         (_fIndex, _fGroup) = StateProjection.CorrelatedIndices(bare.GroupOfBasis);
-        _work = new ThreadLocal<Workspace>(() => new Workspace(n), trackAllValues: false);
+        _work = new ThreadLocal<Workspace>(() => new Workspace(n, bare.GroupCount, _fIndex, _fGroup, HasShellBonds(bare.Model)), trackAllValues: true);
+        if (keepVectors && (long)count * n * n < Array.MaxLength) _vectors = new Complex[count * n * n];
     }
 
-    private sealed class Workspace(int n)
+    private static bool HasShellBonds(BoundModel model) =>
+        model.Hoppings.Any(h => model.Orbitals[h.From].Kind == OrbitalKind.Correlated && model.Orbitals[h.To].Kind == OrbitalKind.Correlated);
+
+    /// <summary>
+    /// Bytes a sum over <paramref name="wedgePoints"/> points of an n-band model with <paramref name="groups"/> shell groups
+    /// holds: the state table ((2 + 2G) doubles per state), the wedge lists, the eigenvectors when kept, and the
+    /// transient bit per full-mesh point used to build the wedge.
+    /// </summary>
+    public static long EstimateBytes(long wedgePoints, long fullPoints, int n, int groups, bool keepVectors) =>
+        wedgePoints * n * (2 + 2L * groups) * sizeof(double) + wedgePoints * 2 * sizeof(int)
+        + (keepVectors ? wedgePoints * n * n * 16L : 0) + fullPoints / 8;
+
+    private sealed class Workspace(int n, int groups, int[] fIndex, int[] fGroup, bool ffBonds)
     {
         public readonly IHermitianEigensolver Solver = Eigensolvers.Create(n);
         public readonly Complex[] H = new Complex[n * n], S = new Complex[n * n], V = new Complex[n * n];
         public readonly double[] E = new double[n];
+        public readonly StateDerivatives Derivatives = new(n, groups, fIndex, fGroup, ffBonds);
         public long DiagonalisationTicks;
     }
 
     public StateTable Fill(MeanFieldAmplitudes amplitudes)
     {
         var ham = new RenormalizedHamiltonian(_bare, amplitudes);
-        int n = _bare.Size, chunks = Math.Max(1, Environment.ProcessorCount);
+        _vectorsOf = _vectors is null ? null : ham;
+        Run((w, lo, hi) => { for (int p = lo; p < hi; p++) FillPoint(ham, p, w); });
+        return _table;
+    }
+
+    /// <summary>
+    /// Energies only (values-only diagonalisation, f weights and slopes left zero): enough for mu and Omega_band, as the
+    /// decoupled branch needs. Invalidates the kept eigenvectors.
+    /// </summary>
+    public StateTable FillEnergies(MeanFieldAmplitudes amplitudes)
+    {
+        var ham = new RenormalizedHamiltonian(_bare, amplitudes);
+        _vectorsOf = null;
+        int n = _bare.Size;
+        Array.Clear(_table.FWeight); Array.Clear(_table.EnergySlope);
+        Run((w, lo, hi) =>
+        {
+            for (int p = lo; p < hi; p++)
+            {
+                ham.Assemble(Mesh.Cartesian(_points[p]), w.H, w.S);
+                long t0 = System.Diagnostics.Stopwatch.GetTimestamp();
+                w.Solver.Solve(w.H, w.E, Span<Complex>.Empty);
+                w.DiagonalisationTicks += System.Diagnostics.Stopwatch.GetTimestamp() - t0;
+                w.E.AsSpan().CopyTo(_table.Energy.AsSpan(p * n, n));
+            }
+        });
+        return _table;
+    }
+
+    private void Run(Action<Workspace, int, int> body)
+    {
+        int count = _points.Length, chunks = Math.Max(1, Math.Min(Environment.ProcessorCount, count));
         long ticks = 0;
         Parallel.For(0, chunks, c =>
         {
             var w = _work.Value!;
             w.DiagonalisationTicks = 0;
-            int start = (int)((long)Mesh.Count * c / chunks), end = (int)((long)Mesh.Count * (c + 1) / chunks);
-            for (int kp = start; kp < end; kp++) FillPoint(ham, kp, w, n);
+            body(w, (int)((long)count * c / chunks), (int)((long)count * (c + 1) / chunks));
             Interlocked.Add(ref ticks, w.DiagonalisationTicks);
         });
         LastDiagonalisationSeconds = ticks / (double)System.Diagnostics.Stopwatch.Frequency;
-        return _table;
     }
 
-    private void FillPoint(RenormalizedHamiltonian ham, int kp, Workspace w, int n)
+    private void FillPoint(RenormalizedHamiltonian ham, int p, Workspace w)
     {
-        ham.Assemble(Mesh.Cartesian(kp), w.H, w.S);
+        int n = _bare.Size;
+        ham.Assemble(Mesh.Cartesian(_points[p]), w.H, w.S);
         long t0 = System.Diagnostics.Stopwatch.GetTimestamp();
         w.Solver.Solve(w.H, w.E, w.V);
         w.DiagonalisationTicks += System.Diagnostics.Stopwatch.GetTimestamp() - t0;
-        StateProjection.Store(_table, kp * n, n, w.E, w.V, w.S, ham.Scale, _fIndex, _fGroup);
+        StateProjection.Store(_table, p * n, n, w.E, w.V, w.S, ham.Scale, _fIndex, _fGroup);
+        if (_vectors is not null) w.V.AsSpan().CopyTo(_vectors.AsSpan(p * n * n, n * n));
+    }
+
+    public bool TryDerivatives(double mu, double temperature, double[] result)
+    {
+        if (_vectors is null || _vectorsOf is not { } ham) return false;
+        int n = _bare.Size;
+        foreach (var w in _work.Values) w.Derivatives.Clear();
+        Run((w, lo, hi) =>
+        {
+            for (int p = lo; p < hi; p++)
+            {
+                _bare.AssembleParts(Mesh.Cartesian(_points[p]), w.H, w.S);
+                w.Derivatives.Add(_table.Weight[p * n], _table.Energy.AsSpan(p * n, n), _vectors.AsSpan(p * n * n, n * n),
+                                  w.S, ham.Scale, mu, temperature);
+            }
+        });
+        StateDerivatives? total = null;
+        foreach (var w in _work.Values)
+        {
+            if (total is null) { total = w.Derivatives; continue; }
+            total.Merge(w.Derivatives);
+            w.Derivatives.Clear();
+        }
+        total!.Result(result);
+        total.Clear();
+        return true;
     }
 }

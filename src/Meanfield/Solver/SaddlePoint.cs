@@ -36,4 +36,6 @@ public sealed record SaddlePoint
     public double WallSeconds { get; init; }
     /// <summary>Number of full passes over the zone (each a diagonalisation of every k-point).</summary>
     public int ZonePasses { get; init; }
+    /// <summary>The symmetry that reduced the zone sums, or null for momentum-free lattices.</summary>
+    public MeshReduction? Symmetry { get; init; }
 }

@@ -42,7 +42,8 @@ public sealed partial class SaddlePointSolver
         double far = 1e6 * (1 + Math.Abs(_groups.Max(g => Math.Abs(g.Level))));
         var x = new double[2 * G];
         for (int g = 0; g < G; g++) x[G + g] = far;
-        var table = _sum.Fill(MeanFieldAmplitudes.Unpack(x));
+        // Only mu and Omega of the conduction states enter: energies suffice (the f levels sit far above).
+        var table = _sum.FillEnergies(MeanFieldAmplitudes.Unpack(x));
         _passes++;
         var fill = BandFilling.Compute(table, remaining, t, tetrahedra: _tetra);
         double free = fill.GrandPotential + fill.Mu * remaining;

@@ -3,6 +3,7 @@ using Meanfield.Binding;
 using Meanfield.Bloch;
 using Meanfield.Lattices;
 using Meanfield.Renormalization;
+using Meanfield.Symmetry;
 
 namespace Meanfield.Solver;
 
@@ -32,7 +33,10 @@ public sealed partial class SaddlePointSolver
     public BlochHamiltonian Bare { get; }
     public IStateSum StateSum => _sum;
 
-    public SaddlePointSolver(BoundModel model, SolverSettings settings)
+    public SaddlePointSolver(BoundModel model, SolverSettings settings) : this(model, settings, null) { }
+
+    /// <summary>A solver that reuses a symmetry group already found for the same model (the half-mesh start).</summary>
+    private SaddlePointSolver(BoundModel model, SolverSettings settings, SymmetryGroup? group)
     {
         settings.Validate();
         _model = model; _settings = settings;
@@ -55,11 +59,27 @@ public sealed partial class SaddlePointSolver
         foreach (var h in model.Hoppings) _energyScale = Math.Max(_energyScale, h.Amplitude.MaxAbs());
         if (model.ElectronsPerCell < 0 || model.ElectronsPerCell > model.StatesPerCell)
             throw new ArgumentException($"{model.ElectronsPerCell} electrons per cell is impossible: the cell has {model.StatesPerCell} states");
-        _sum = model.IsMomentumFree
-            ? new LocalDosStateSum(Bare, settings.DosNodes)
-            : new MeshStateSum(Bare, new KMesh(model.Lattice, settings.Mesh, settings.Shifted));
-        if (settings.Temperature <= 0 && _sum is MeshStateSum zone) _tetra = new TetrahedronFilling(zone.Mesh, Bare.Size);
+        if (model.IsMomentumFree) _sum = new LocalDosStateSum(Bare, settings.DosNodes);
+        else
+        {
+            // The T = 0 tetrahedron filling needs every corner of the full mesh in index order: no wedge reduction there.
+            group ??= SymmetryGroup.Find(Bare, settings.Temperature <= 0 ? SymmetryRequest.None : settings.Symmetry);
+            _group = group;
+            bool keep = MeshMemory.Check(model, settings, group, out var mesh);
+            var sum = new MeshStateSum(Bare, mesh, group, keep && settings.AnalyticJacobian);
+            _sum = sum;
+            var ir = sum.Irreducible;
+            _reduction = new MeshReduction(group.Order, group.UnitaryCount, ir.ActionCount, mesh.Count, ir.Count,
+                                           [.. group.Operations.Select(o => o.Name)]);
+            if (settings.Temperature <= 0) _tetra = new TetrahedronFilling(sum.Mesh, Bare.Size);
+        }
     }
+
+    private readonly MeshReduction? _reduction;
+    private readonly SymmetryGroup? _group;
+
+    /// <summary>How symmetry reduced the mesh (null for momentum-free lattices).</summary>
+    public MeshReduction? Reduction => _reduction;
 
     /// <summary>The T = 0 tetrahedron filling of the k-mesh, or null (T &gt; 0, or a momentum-free lattice).</summary>
     public TetrahedronFilling? Tetrahedra => _tetra;
@@ -105,6 +125,7 @@ public sealed partial class SaddlePointSolver
     {
         var amp = MeanFieldAmplitudes.Unpack(x);
         var table = _sum.Fill(amp);
+        _lastTable = table;
         _passes++;
         var fill = BandFilling.Compute(table, _model.ElectronsPerCell, _settings.Temperature, _lastMu, _tetra);
         _lastMu = fill.Mu;
@@ -149,6 +170,83 @@ public sealed partial class SaddlePointSolver
         return j;
     }
 
+    /// <summary>Newton steps that failed their line search and handed over to Broyden (over the solver's life).</summary>
+    public int NewtonFallbacks { get; private set; }
+
+    /// <summary>
+    /// The analytic Jacobian of the scaled residuals in y = (ln r, lambda/E0) at the last evaluated point (its pass's
+    /// eigenstates, <see cref="ISaddlePointDerivatives"/>). With m_g shells per group, R1_g = n_f,g/m_g + r_g^2 - Q and
+    /// R2s_g = (Omega'_g/m_g + 2 lambda_g r_g)/(r_g E0):
+    ///   dR1_g/dy_h = r_h (dn_f,g/dr_h / m_g + 2 r_g delta_gh),        dR1_g/dy_(G+h) = E0 dn_f,g/dlambda_h / m_g,
+    ///   dR2s_g/dy_h = r_h (dOmega'_g/dr_h / m_g + 2 lambda_g delta_gh)/(r_g E0) - delta_gh R2s_g,
+    ///   dR2s_g/dy_(G+h) = (dOmega'_g/dlambda_h / m_g + 2 r_g delta_gh)/r_g.
+    /// Null when the sum keeps no eigenvectors, or at T = 0 when a state sits at mu (occupations jump there).
+    /// </summary>
+    internal double[]? AnalyticJacobian(double[] y, double[] res, BandFilling fill)
+    {
+        if (_sum is not ISaddlePointDerivatives d) return null;
+        double t = _settings.Temperature;
+        if (t <= 0 && (fill.Status != FermiLevelStatus.Regular || _lastTable is not { } table || StateAtMu(table, fill.Mu))) return null;
+        int n = 2 * G;
+        var raw = new double[n * n];
+        if (!d.TryDerivatives(fill.Mu, t, raw)) return null;
+        var j = new double[n * n];
+        for (int g = 0; g < G; g++)
+        {
+            double rg = Math.Exp(y[g]), lg = y[G + g] * _energyScale, m = _groups[g].Shells;
+            for (int h = 0; h < G; h++)
+            {
+                double rh = Math.Exp(y[h]), delta = g == h ? 1 : 0;
+                j[g * n + h] = rh * (raw[g * n + h] / m + 2 * rg * delta);
+                j[g * n + G + h] = _energyScale * raw[g * n + G + h] / m;
+                j[(G + g) * n + h] = rh * (raw[(G + g) * n + h] / m + 2 * lg * delta) / (rg * _energyScale) - delta * res[G + g];
+                j[(G + g) * n + G + h] = (raw[(G + g) * n + G + h] / m + 2 * rg * delta) / rg;
+            }
+        }
+        return j;
+    }
+
+    /// <summary>True when a state lies at mu to 1e-12 of the spectrum's width (a T = 0 occupation step on it).</summary>
+    private static bool StateAtMu(StateTable table, double mu)
+    {
+        double lo = double.PositiveInfinity, hi = double.NegativeInfinity, closest = double.PositiveInfinity;
+        foreach (var e in table.Energy) { lo = Math.Min(lo, e); hi = Math.Max(hi, e); closest = Math.Min(closest, Math.Abs(e - mu)); }
+        return closest <= 1e-12 * Math.Max(hi - lo, 1e-300);
+    }
+
+    private StateTable? _lastTable;
+
+    /// <summary>
+    /// For checks: the analytic Jacobian of the scaled residuals at x = (r, lambda) and a finite-difference one in
+    /// y = (ln r, lambda/E0): central differences with steps h and h/2 combined by Richardson extrapolation (error O(h^4)),
+    /// both row-major 2G x 2G. Null analytic when unavailable.
+    /// </summary>
+    internal (double[]? Analytic, double[] Numeric) JacobianCheck(double[] x, double step = 1e-5)
+    {
+        var y = ToIterationVector(x);
+        var (res, fill) = EvaluateLog(y);
+        var analytic = AnalyticJacobian(y, res, fill);
+        int n = y.Length;
+        var numeric = new double[n * n];
+        for (int c = 0; c < n; c++)
+        {
+            var d1 = Central(y, c, step); var d2 = Central(y, c, step / 2);
+            for (int r = 0; r < n; r++) numeric[r * n + c] = (4 * d2[r] - d1[r]) / 3;
+        }
+        return (analytic, numeric);
+    }
+
+    private double[] Central(double[] y, int c, double h)
+    {
+        var yp = (double[])y.Clone(); yp[c] += h;
+        var ym = (double[])y.Clone(); ym[c] -= h;
+        var (rp, _) = EvaluateLog(yp);
+        var (rm, _) = EvaluateLog(ym);
+        var d = new double[y.Length];
+        for (int r = 0; r < y.Length; r++) d[r] = (rp[r] - rm[r]) / (2 * h);
+        return d;
+    }
+
     public SaddlePoint Solve(CancellationToken cancellation = default)
     {
         var clock = Stopwatch.StartNew();
@@ -163,7 +261,7 @@ public sealed partial class SaddlePointSolver
             if (attempt.Converged || attempt.Collapsed) break;
         }
         var result = Finish(best!);
-        return result with { WallSeconds = clock.Elapsed.TotalSeconds, ZonePasses = _passes };
+        return result with { WallSeconds = clock.Elapsed.TotalSeconds, ZonePasses = _passes, Symmetry = _reduction };
     }
 
     private sealed record Attempt(double[] X, double[] Res, BandFilling Filling, int Iterations, bool Converged, bool Collapsed, bool Stalled)
@@ -178,6 +276,7 @@ public sealed partial class SaddlePointSolver
         var y = ToIterationVector(x0);
         var (res, fill) = EvaluateLog(y);
         double[]? jac = jacobian is null ? null : (double[])jacobian.Clone(); bool fresh = false;
+        bool newton = _settings.AnalyticJacobian && _sum is ISaddlePointDerivatives;
         int n = y.Length;
         double collapse = Math.Log(_settings.CollapseThreshold);
         var history = new List<double>();
@@ -196,11 +295,18 @@ public sealed partial class SaddlePointSolver
             history.Add(Norm(res));
             if (small && history.Count > 4 && history[^1] > 0.7 * history[^5]) collapsed = true;
             if (collapsed) return new(ToAmplitudeVector(y), Unscaled(y, res), fill, it, false, true, false);
+            bool newtonStep = false;
+            if (newton)
+            {
+                if (AnalyticJacobian(y, res, fill) is { } analytic) { jac = analytic; fresh = true; newtonStep = true; }
+                else newton = false;
+            }
             if (jac is null) { jac = Jacobian(y, res); fresh = true; }
             var rhs = new double[n];
             for (int i = 0; i < n; i++) rhs[i] = -res[i];
             if (!Numerics.DenseSolve.TrySolve(jac, rhs, n, out var dy))
             {
+                if (newtonStep) { newton = false; jac = null; continue; }
                 if (fresh) return new(ToAmplitudeVector(y), Unscaled(y, res), fill, it, false, false, true);
                 jac = null; continue;
             }
@@ -219,9 +325,12 @@ public sealed partial class SaddlePointSolver
             }
             if (!accepted)
             {
+                // Newton failed here: Broyden with a finite-difference Jacobian takes over for this start.
+                if (newtonStep) { newton = false; jac = null; NewtonFallbacks++; continue; }
                 if (fresh) return new(ToAmplitudeVector(y), Unscaled(y, res), fill, it + 1, false, false, true);
                 jac = null; continue;
             }
+            if (newtonStep) { y = yn; res = rn; fill = fn; continue; }
             // Broyden's rank-one update: J += (dF - J dy) dy^T / (dy^T dy).
             var step = new double[n]; double ss = 0;
             for (int i = 0; i < n; i++) { step[i] = yn[i] - y[i]; ss += step[i] * step[i]; }

@@ -1,4 +1,5 @@
 using Meanfield.Renormalization;
+using Meanfield.Symmetry;
 
 namespace Meanfield.Solver;
 
@@ -20,6 +21,13 @@ public sealed record SolverSettings
     public MeanFieldAmplitudes? InitialGuess { get; init; }
     /// <summary>Below this r every group is taken to have collapsed to the decoupled (local-moment) solution.</summary>
     public double CollapseThreshold { get; init; } = 1e-3;
+    /// <summary>Symmetry that reduces the k-mesh sums: found from the model (default), none, or named operations.</summary>
+    public SymmetryRequest Symmetry { get; init; } = SymmetryRequest.Auto;
+    /// <summary>
+    /// Newton steps with the analytic Jacobian of the saddle-point sums (default); false: Broyden's method with a
+    /// finite-difference Jacobian throughout (which also stays the fallback when a Newton step fails).
+    /// </summary>
+    public bool AnalyticJacobian { get; init; } = true;
 
     public void Validate()
     {

@@ -9,6 +9,7 @@ namespace Meanfield.Solver;
 /// </summary>
 internal static class StateProjection
 {
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)] // hot loop: skip tier-0 code
     public static void Store(StateTable table, int firstState, int n, ReadOnlySpan<double> energies, ReadOnlySpan<Complex> vectors,
                              ReadOnlySpan<Complex> scaled, ReadOnlySpan<double> scale, ReadOnlySpan<int> fIndex, ReadOnlySpan<int> fGroup)
     {

@@ -16,7 +16,10 @@ public sealed class StateTable
     public double[] FWeight { get; }
     /// <summary>dE/dr_g, index state * Groups + g (energy unit).</summary>
     public double[] EnergySlope { get; }
-    /// <summary>True when every weight equals 1/Count (a k-mesh): exact degeneracies at the Fermi level are meaningful.</summary>
+    /// <summary>
+    /// True for a k-mesh: every weight is an integer multiple of 1 / (full mesh) (1 on the full mesh, the orbit size on an
+    /// irreducible wedge), so exact degeneracies at the Fermi level are meaningful.
+    /// </summary>
     public bool UniformWeights { get; }
 
     public StateTable(int count, int groups, bool uniformWeights)
