@@ -11,7 +11,8 @@ namespace Meanfield.Analysis.Responses;
 /// Omega_n^ab = -2 Im sum_{m != n} &lt;n|d_a H|m&gt;&lt;m|d_b H|n&gt; / (E_n - E_m)^2
 /// (Xiao, Chang &amp; Niu, Rev. Mod. Phys. 82, 1959 (2010), Eq. 1.13), the curl of A = i&lt;u|grad u&gt;, the same sign
 /// as the link-variable curvature of <see cref="Curvature.BerryCurvature"/>. Pairs degenerate within
-/// <see cref="ResponseTolerances.Degeneracy"/> are left out. <see cref="Compute"/> allocates nothing.
+/// <see cref="ResponseTolerances.Degeneracy"/> are left out, and within such a multiplet velocities and curvatures are
+/// replaced by their multiplet averages (basis independent). <see cref="Compute"/> allocates nothing.
 /// </summary>
 public sealed class BandGeometry
 {
@@ -64,6 +65,28 @@ public sealed class BandGeometry
                 oxy += w * (_v0[b * n + m] * _v1[m * n + b]).Imaginary;
             }
             Curvatures[3 * b] = oyz; Curvatures[3 * b + 1] = ozx; Curvatures[3 * b + 2] = oxy;
+        }
+        AverageMultiplets(tol);
+    }
+
+    // Within a degenerate multiplet single-band velocities and curvatures depend on the basis chosen inside it; their
+    // multiplet averages (traces over the multiplet divided by its size) do not, and keep every multiplet sum.
+    private void AverageMultiplets(double tol)
+    {
+        int n = Size;
+        for (int start = 0; start < n;)
+        {
+            int end = start + 1;
+            while (end < n && Energies[end] - Energies[end - 1] < tol) end++;
+            if (end - start > 1)
+                for (int a = 0; a < 3; a++)
+                {
+                    double v = 0, o = 0;
+                    for (int b = start; b < end; b++) { v += Velocities[3 * b + a]; o += Curvatures[3 * b + a]; }
+                    v /= end - start; o /= end - start;
+                    for (int b = start; b < end; b++) { Velocities[3 * b + a] = v; Curvatures[3 * b + a] = o; }
+                }
+            start = end;
         }
     }
 
