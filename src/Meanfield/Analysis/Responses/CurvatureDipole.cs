@@ -1,3 +1,4 @@
+using Meanfield.Analysis.Symmetry;
 using Meanfield.Bloch;
 using Meanfield.Numerics;
 
@@ -12,8 +13,16 @@ namespace Meanfield.Analysis.Responses;
 /// <param name="Tensor">[iT, iMu]: D_ab row-major (9 numbers, a = derivative direction, b = curvature component).</param>
 /// <param name="Unit">"1" (dimensionless, 3D) or "angstrom" (2D).</param>
 /// <param name="Samples">The zone sampling used.</param>
+/// <param name="PointGroupOrder">Number of point operations found by <see cref="ModelSymmetry.Find"/> (0 when not analysed).</param>
+/// <param name="Allowed">Orthonormal basis of the symmetry-allowed tensors (empty: the group forbids D; null: not analysed).</param>
+/// <param name="HasInversion">Inversion is a symmetry (then D = 0 identically).</param>
 public sealed record DipoleResult(int Dimension, IReadOnlyList<double> ChemicalPotentials, IReadOnlyList<double> Temperatures,
-                                  double[,][] Tensor, string Unit, CurvatureSamples Samples);
+                                  double[,][] Tensor, string Unit, CurvatureSamples Samples,
+                                  int PointGroupOrder = 0, IReadOnlyList<double[]>? Allowed = null, bool HasInversion = false)
+{
+    /// <summary>Components that vanish by symmetry ("xx", ...), or null when not analysed.</summary>
+    public IReadOnlyList<string>? Forbidden { get; init; }
+}
 
 /// <summary>
 /// D_ab = Int d^dk/(2 pi)^d sum_n f_n d_a Omega_n,b (Sodemann &amp; Fu, PRL 115, 216806 (2015), Eq. 3), evaluated in
@@ -23,13 +32,20 @@ public sealed record DipoleResult(int Dimension, IReadOnlyList<double> ChemicalP
 /// </summary>
 public static class CurvatureDipole
 {
-    /// <summary>Samples the zone, then evaluates D on the grid.</summary>
+    /// <summary>
+    /// Samples the zone, evaluates D on the grid and finds the point group of the model with the components it allows.
+    /// </summary>
     /// <exception cref="ArgumentException">A lattice without momentum, or empty grids.</exception>
     /// <exception cref="ArgumentOutOfRangeException">A temperature that is not positive, or an invalid mesh.</exception>
     public static DipoleResult Compute(IBlochSource source, IReadOnlyList<double> mu, IReadOnlyList<double> temperatures, ResponseMesh mesh)
     {
         ResponseUnits.CheckGrid(mu, temperatures, allowZeroTemperature: false);
-        return FromSamples(CurvatureSamples.Compute(source, mesh), mu, temperatures);
+        var ops = ModelSymmetry.Find(source);
+        return FromSamples(CurvatureSamples.Compute(source, mesh), mu, temperatures) with
+        {
+            PointGroupOrder = ops.Count, Allowed = DipoleSymmetry.AllowedBasis(ops), HasInversion = ops.Any(o => o.IsInversion),
+            Forbidden = DipoleSymmetry.ForbiddenComponents(ops),
+        };
     }
 
     /// <summary>Evaluates D on the grid from precomputed samples.</summary>
