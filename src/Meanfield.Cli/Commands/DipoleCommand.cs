@@ -9,6 +9,7 @@ namespace Meanfield.Cli.Commands;
 /// <summary>`meanfield dipole INPUT --window MU1 MU2 --temperatures 5K --out FILE`: Berry curvature dipole against mu and T.</summary>
 public static class DipoleCommand
 {
+    /// <summary>Builds the `dipole` command.</summary>
     public static Command Build()
     {
         var solution = new SolutionOptions();

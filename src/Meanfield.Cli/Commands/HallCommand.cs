@@ -9,6 +9,7 @@ namespace Meanfield.Cli.Commands;
 /// <summary>`meanfield hall INPUT --window MU1 MU2 --out FILE`: intrinsic anomalous Hall conductivity against mu and T.</summary>
 public static class HallCommand
 {
+    /// <summary>Builds the `hall` command.</summary>
     public static Command Build()
     {
         var solution = new SolutionOptions();

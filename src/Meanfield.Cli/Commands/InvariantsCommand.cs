@@ -10,6 +10,7 @@ namespace Meanfield.Cli.Commands;
 /// <summary>`meanfield invariants INPUT [--flow FILE.png]`: Z2 indices (or a 2D Chern number) of the occupied bands.</summary>
 public static class InvariantsCommand
 {
+    /// <summary>Builds the `invariants` command.</summary>
     public static Command Build()
     {
         var solution = new SolutionOptions();

@@ -8,22 +8,29 @@ namespace Meanfield.Cli.Commands;
 /// <summary>Options the `hall` and `dipole` commands share: the mu window, the temperatures and the response mesh.</summary>
 internal sealed class ResponseOptions
 {
+    /// <summary>--window MU1 MU2 (relative to mu0).</summary>
     public Option<double[]> Window { get; } = new("--window")
     {
         Description = "Chemical potentials MU1 MU2 relative to the solution's mu (model energy unit)", Required = true,
         Arity = new ArgumentArity(2, 2), AllowMultipleArgumentsPerToken = true,
     };
+    /// <summary>--points: mu values in the window.</summary>
     public Option<int> Points { get; } = new("--points") { Description = "Chemical potentials in the window (2..2001)", DefaultValueFactory = _ => 121 };
+    /// <summary>--temperatures: comma-separated list.</summary>
     public Option<string> Temperatures { get; }
+    /// <summary>--kmesh: response mesh divisions.</summary>
     public Option<int> KMesh { get; } = new("--kmesh") { Description = "Response k-mesh divisions per reciprocal axis (shifted; 2..256)", DefaultValueFactory = _ => 24 };
+    /// <summary>--refine: adaptive refinement levels.</summary>
     public Option<int> Refine { get; } = new("--refine") { Description = "Adaptive refinement levels around curvature spikes (0..4; each splits a cell in 3 per axis)", DefaultValueFactory = _ => 0 };
 
+    /// <summary>Options with the given default temperature list.</summary>
     public ResponseOptions(string defaultTemperatures) => Temperatures = new("--temperatures")
     {
         Description = $"Comma-separated temperatures of the Fermi function: 2K, 0.3meV or bare numbers in the energy unit (default {defaultTemperatures})",
         DefaultValueFactory = _ => defaultTemperatures,
     };
 
+    /// <summary>Adds the options to a command.</summary>
     public void AddTo(Command c) { c.Add(Window); c.Add(Points); c.Add(Temperatures); c.Add(KMesh); c.Add(Refine); }
 
     /// <summary>mu grid, temperatures (energy unit) and mesh, checked.</summary>
@@ -54,5 +61,6 @@ internal sealed class ResponseOptions
     public static double ReferenceMu(SolutionInput src) =>
         src.Mu ?? Analysis.MeshFermiLevel.Find(Analysis.Dos.MeshSpectrum.Compute(src.Hamiltonian, new Lattices.KMesh(src.Model.Lattice, 16), false), src.Model.ElectronsPerCell);
 
+    /// <summary>Five significant digits, invariant culture.</summary>
     public static string Format(double v) => v.ToString("G5", CultureInfo.InvariantCulture);
 }

@@ -21,6 +21,7 @@ public sealed class BandGeometry
     private readonly IHermitianEigensolver _solver;
     private readonly Complex[] _h, _scratch, _u, _d0, _d1, _d2, _t, _v0, _v1, _v2;
 
+    /// <summary>Number of bands.</summary>
     public int Size { get; }
     /// <summary>E_n, ascending (energy unit).</summary>
     public double[] Energies { get; }
@@ -29,6 +30,7 @@ public sealed class BandGeometry
     /// <summary>Omega_n along a at [n * 3 + a] (square angstrom).</summary>
     public double[] Curvatures { get; }
 
+    /// <summary>Buffers for <paramref name="source"/> with its velocity operator (one instance per thread).</summary>
     public BandGeometry(IBlochSource source, VelocityOperator velocity)
     {
         _source = source; _velocity = velocity; Size = source.Size;

@@ -29,6 +29,7 @@ public sealed record ResponseMesh
         if (!(RefinementFlux > 0)) throw new ArgumentOutOfRangeException(nameof(RefinementFlux), "the refinement flux must be positive");
     }
 
+    /// <summary>"24^d shifted, refined x3 up to 2 level(s) above 0.1 rad per face".</summary>
     public override string ToString() =>
         $"{Divisions}^d {(Shifted ? "shifted" : "Gamma-centred")}" + (RefinementLevels > 0 ? $", refined x3 up to {RefinementLevels} level(s) above {RefinementFlux:G3} rad per face" : "");
 }
@@ -40,17 +41,25 @@ public sealed record ResponseMesh
 /// </summary>
 public sealed class CurvatureSamples
 {
+    /// <summary>Bands per k-point.</summary>
     public required int Bands { get; init; }
+    /// <summary>Weight of each sample (fraction of the zone; they sum to 1).</summary>
     public required double[] Weights { get; init; }
+    /// <summary>E_n (energy unit) at s * Bands + n.</summary>
     public required double[] Energies { get; init; }
+    /// <summary>dE_n/dk_a (energy unit x angstrom) at (s * Bands + n) * 3 + a.</summary>
     public required double[] Velocities { get; init; }
+    /// <summary>Omega_n along a (square angstrom) at (s * Bands + n) * 3 + a.</summary>
     public required double[] Curvatures { get; init; }
     /// <summary>Base mesh points.</summary>
     public required int BasePoints { get; init; }
     /// <summary>Base cells that were refined (at the first level).</summary>
     public required int RefinedCells { get; init; }
+    /// <summary>The sampling settings used.</summary>
     public required ResponseMesh Mesh { get; init; }
+    /// <summary>The lattice of the model (cell volume and dimension for the unit conversions).</summary>
     public required Lattice Lattice { get; init; }
+    /// <summary>Number of samples.</summary>
     public int Count => Weights.Length;
 
     /// <summary>Samples the zone of <paramref name="source"/>.</summary>

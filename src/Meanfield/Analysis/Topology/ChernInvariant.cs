@@ -9,6 +9,7 @@ namespace Meanfield.Analysis.Topology;
 /// </summary>
 /// <param name="Status">Determined, gapless, or unresolved (a plaquette flux too large even on the finest grid).</param>
 /// <param name="Reason">One plain sentence explaining the status.</param>
+/// <param name="Occupied">Number of bands whose Chern number is asked for.</param>
 /// <param name="Chern">The Chern number when determined, else null.</param>
 /// <param name="FluxOver2Pi">Total Berry flux over 2 pi on the last grid (an integer up to round-off).</param>
 /// <param name="Grid">Plaquettes per reciprocal axis of the last grid.</param>

@@ -7,6 +7,8 @@ namespace Meanfield.Analysis.Topology;
 /// Every invariant that applies to the lowest <see cref="Occupied"/> bands: Z2 with time reversal (2D and 3D), the
 /// Chern number in 2D without it.
 /// </summary>
+/// <param name="Occupied">Number of filled bands.</param>
+/// <param name="Dimension">2 or 3.</param>
 /// <param name="Z2">The Z2 result (status NotApplicable without spin-1/2 time reversal).</param>
 /// <param name="Chern">The 2D Chern number when time reversal is broken; null otherwise (it vanishes with time reversal).</param>
 public sealed record InvariantReport(int Occupied, int Dimension, Z2Result Z2, ChernResult? Chern)

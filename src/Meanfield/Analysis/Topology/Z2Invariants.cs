@@ -24,6 +24,8 @@ public sealed record Z2Options
 /// </summary>
 /// <param name="Status">Determined, or why not (gapless, not applicable, unresolved).</param>
 /// <param name="Reason">One plain sentence explaining the status.</param>
+/// <param name="Dimension">2 or 3.</param>
+/// <param name="Occupied">Number of bands whose invariants are asked for.</param>
 /// <param name="Indices">The answer when determined (both methods agree, or the flow alone); null otherwise.</param>
 /// <param name="FromParity">Indices from the TRIM parities, or null (no inversion, or unresolved parities).</param>
 /// <param name="Trims">The TRIM parities behind <see cref="FromParity"/> (empty without inversion).</param>
