@@ -37,6 +37,32 @@ internal static class TopologyModels
     }
 
     /// <summary>
+    /// The Kane-Mele model without Rashba coupling (Kane &amp; Mele, PRL 95, 146802 (2005)): spin-1/2 on the honeycomb
+    /// net, nearest-neighbour hopping t, intrinsic spin-orbit i lambda nu_ij s_z on next-nearest bonds (nu = +1 along
+    /// a1, a2 - a1, -a2 on A, -1 on B) and a sublattice potential +-M. Quantum spin Hall for |M| &lt; 3 sqrt(3) lambda.
+    /// </summary>
+    public static BlochHamiltonian KaneMele(double t, double lambda, double m, double a = 2.5)
+    {
+        var lat = Lattice.Create(LatticeKind.Honeycomb, a);
+        var tauB = new Vec3(a / 2, a / (2 * Math.Sqrt(3)), 0);
+        var nn = FlavourMatrix.Identity(2, t);
+        var hops = new List<Hopping>
+        {
+            new(0, 1, (0, 0, 0), nn, "nn1"), new(0, 1, (-1, 0, 0), nn, "nn2"), new(0, 1, (0, -1, 0), nn, "nn3"),
+        };
+        (int, int, int)[] nnn = [(1, 0, 0), (-1, 1, 0), (0, -1, 0)];
+        var so = FlavourMatrix.Pauli(0, 0, 0, Complex.ImaginaryOne * lambda);
+        foreach (var r in nnn) { hops.Add(new(0, 0, r, so, "soA")); hops.Add(new(1, 1, r, so.Scale(-1), "soB")); }
+        return new(new BoundModel
+        {
+            Name = "kane-mele", Lattice = lat, Flavours = 2, Sites = [new("A", Vec3.Zero), new("B", tauB)],
+            Orbitals = [new("p", 0, OrbitalKind.Conduction), new("p", 1, OrbitalKind.Conduction)], Shells = [],
+            Hoppings = hops, Onsite = [new(0, FlavourMatrix.Identity(2, m), "MA"), new(1, FlavourMatrix.Identity(2, -m), "MB")],
+            ElectronsPerCell = 2,
+        });
+    }
+
+    /// <summary>
     /// The massive 2D Dirac cone H = v (k_x sigma_x + k_y sigma_y) + m sigma_z (not periodic), on the model of a square
     /// lattice so that it can be handed to the response code; its velocities come from finite differences.
     /// </summary>

@@ -82,3 +82,34 @@ public sealed class Z2InvariantTests
         Assert.True(ModelSymmetry.HasTimeReversal(h));
     }
 }
+
+/// <summary>The 2D Z2 index of the Kane-Mele model (Kane &amp; Mele, PRL 95, 146802 (2005)).</summary>
+public sealed class TwoDimensionalZ2Tests
+{
+    private static readonly Z2Options Cheap = new() { GapMesh = 12, PumpSteps = 8, LoopPoints = 16 };
+    private const double Lambda = 0.06;
+    // Kane & Mele 2005: without Rashba coupling the quantum spin Hall phase is |M| < 3 sqrt(3) lambda.
+    private static readonly double Boundary = 3 * Math.Sqrt(3) * Lambda;
+
+    [Fact]
+    public void InversionSymmetricKaneMeleIsQuantumSpinHallByBothMethods()
+    {
+        var r = Z2Invariants.Compute(TopologyModels.KaneMele(1, Lambda, 0), 2, Cheap);
+        Assert.Equal(InvariantStatus.Determined, r.Status);
+        Assert.NotNull(r.Inversion);
+        Assert.True(r.MethodsAgree);
+        Assert.Equal(1, r.Indices!.Nu0);
+        Assert.Equal(Z2Class.Strong, r.Indices.Class);
+    }
+
+    [Theory]
+    [InlineData(0.5, 1)]
+    [InlineData(1.5, 0)]
+    public void SublatticePotentialBeyondThePublishedBoundaryMakesItTrivial(double mOverBoundary, int nu)
+    {
+        var r = Z2Invariants.Compute(TopologyModels.KaneMele(1, Lambda, mOverBoundary * Boundary), 2, Cheap);
+        Assert.Equal(InvariantStatus.Determined, r.Status);
+        Assert.Null(r.Inversion);
+        Assert.Equal(nu, r.Indices!.Nu0);
+    }
+}
