@@ -17,6 +17,12 @@ public sealed record ResponseMesh
     public int RefinementLevels { get; init; }
     /// <summary>Flux per cell face (radians) above which a cell is refined. Default <see cref="ResponseTolerances.RefinementFlux"/>.</summary>
     public double RefinementFlux { get; init; } = ResponseTolerances.RefinementFlux;
+    /// <summary>
+    /// Thermal width k_B T (energy unit) the Fermi window must be resolved to, or null: with refinement on, a cell is
+    /// also split when a band inside the window changes by more than this across it (|dE/dk| h &gt; k_B T), so the
+    /// Fermi-surface integrals (the dipole, sigma of a metal at low T) see a smooth -df/dE.
+    /// </summary>
+    public double? ThermalWidth { get; init; }
     /// <summary>Only bands with energies in [Min, Max] (energy unit) can trigger refinement; null: every band.</summary>
     public (double Min, double Max)? RefinementWindow { get; init; }
 
@@ -26,12 +32,14 @@ public sealed record ResponseMesh
     {
         if (Divisions is < 2 or > 256) throw new ArgumentOutOfRangeException(nameof(Divisions), $"mesh divisions {Divisions}: use 2..256");
         if (RefinementLevels is < 0 or > 4) throw new ArgumentOutOfRangeException(nameof(RefinementLevels), $"refinement levels {RefinementLevels}: use 0..4");
+        if (ThermalWidth is { } kt && !(kt > 0)) throw new ArgumentOutOfRangeException(nameof(ThermalWidth), "the thermal width must be positive");
         if (!(RefinementFlux > 0)) throw new ArgumentOutOfRangeException(nameof(RefinementFlux), "the refinement flux must be positive");
     }
 
     /// <summary>"24^d shifted, refined x3 up to 2 level(s) above 0.1 rad per face".</summary>
     public override string ToString() =>
-        $"{Divisions}^d {(Shifted ? "shifted" : "Gamma-centred")}" + (RefinementLevels > 0 ? $", refined x3 up to {RefinementLevels} level(s) above {RefinementFlux:G3} rad per face" : "");
+        $"{Divisions}^d {(Shifted ? "shifted" : "Gamma-centred")}" + (RefinementLevels > 0 ? $", refined x3 up to {RefinementLevels} level(s) above {RefinementFlux:G3} rad per face"
+           + (ThermalWidth is { } kt ? $" or band changes above {kt:G3} per cell" : "") : "");
 }
 
 /// <summary>
@@ -129,6 +137,11 @@ public sealed class CurvatureSamples
             if (mesh.RefinementWindow is { } w && (g.Energies[n] < w.Min || g.Energies[n] > w.Max)) continue;
             double ox = g.Curvatures[3 * n], oy = g.Curvatures[3 * n + 1], oz = g.Curvatures[3 * n + 2];
             if (Math.Sqrt(ox * ox + oy * oy + oz * oz) * h * h > mesh.RefinementFlux) return true;
+            if (mesh.ThermalWidth is { } kt)
+            {
+                double vx = g.Velocities[3 * n], vy = g.Velocities[3 * n + 1], vz = g.Velocities[3 * n + 2];
+                if (Math.Sqrt(vx * vx + vy * vy + vz * vz) * h > kt) return true;
+            }
         }
         return false;
     }

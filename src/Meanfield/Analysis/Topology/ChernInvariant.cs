@@ -43,7 +43,7 @@ public static class ChernInvariant
         if (grid < 4) throw new ArgumentOutOfRangeException(nameof(grid), "at least 4 plaquettes per axis");
         var gap = GapCheckResult.Run(source, occupied, gapMesh);
         if (!gap.HasDirectGap)
-            return new(InvariantStatus.Gapless, $"bands {occupied - 1} and {occupied} touch at {gap.Nodes} point(s): no Chern number", occupied, null, double.NaN, grid, double.NaN, gap);
+            return new(InvariantStatus.Gapless, $"bands {occupied - 1} and {occupied} touch at {gap.Nodes} point(s)", occupied, null, double.NaN, grid, double.NaN, gap);
         if (gap.IndirectGap <= 0 && !allowBandOverlap)
             return new(InvariantStatus.Gapless, $"bands {occupied - 1} and {occupied} overlap in energy: no gap at this filling", occupied, null, double.NaN, grid, double.NaN, gap);
         BerryCurvatureMap map = null!;

@@ -79,7 +79,7 @@ public static class Z2Invariants
 
         var gap = GapCheckResult.Run(source, occupied, opt.GapMesh);
         if (!gap.HasDirectGap)
-            return Fail(InvariantStatus.Gapless, $"bands {occupied - 1} and {occupied} touch at {gap.Nodes} point(s) (search mesh {gap.Mesh}): no invariant", gap, trDefect);
+            return Fail(InvariantStatus.Gapless, $"bands {occupied - 1} and {occupied} touch at {gap.Nodes} point(s) (search mesh {gap.Mesh})", gap, trDefect);
         if (gap.IndirectGap <= 0 && !opt.AllowBandOverlap)
             return Fail(InvariantStatus.Gapless, string.Create(inv,
                 $"bands {occupied - 1} and {occupied} overlap in energy by {-gap.IndirectGap:G4} {model.Unit.Symbol()}: no gap at this filling"), gap, trDefect);
