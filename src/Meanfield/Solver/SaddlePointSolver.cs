@@ -113,6 +113,17 @@ public sealed partial class SaddlePointSolver
         return y;
     }
 
+    /// <summary>
+    /// The residuals as the convergence test judges them: constraints as they are (dimensionless), stationarity divided by
+    /// the model's largest energy E0, so that the same tolerance means the same thing at every energy scale.
+    /// </summary>
+    private double[] Relative(double[] unscaled)
+    {
+        var rel = (double[])unscaled.Clone();
+        for (int g = 0; g < G; g++) rel[G + g] /= _energyScale;
+        return rel;
+    }
+
     private double[] Unscaled(double[] y, double[] scaledResidual)
     {
         var res = (double[])scaledResidual.Clone();
@@ -283,7 +294,7 @@ public sealed partial class SaddlePointSolver
         for (int it = 0; it < _settings.MaxIterations; it++)
         {
             ct.ThrowIfCancellationRequested();
-            if (MaxAbs(Unscaled(y, res)) < _settings.Tolerance && MaxAbs(res) < 1e3 * _settings.Tolerance)
+            if (MaxAbs(Relative(Unscaled(y, res))) < _settings.Tolerance && MaxAbs(res) < 1e3 * _settings.Tolerance)
             {
                 _lastJacobian = jac;
                 return new(ToAmplitudeVector(y), Unscaled(y, res), fill, it, true, false, false);
@@ -347,7 +358,7 @@ public sealed partial class SaddlePointSolver
             y = yn; res = rn; fill = fn;
         }
         var final = Unscaled(y, res);
-        return new(ToAmplitudeVector(y), final, fill, _settings.MaxIterations, MaxAbs(final) < _settings.Tolerance, false, false);
+        return new(ToAmplitudeVector(y), final, fill, _settings.MaxIterations, MaxAbs(Relative(final)) < _settings.Tolerance, false, false);
     }
 
     private SaddlePoint Finish(Attempt a)

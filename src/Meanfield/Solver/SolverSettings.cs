@@ -8,7 +8,10 @@ public sealed record SolverSettings
 {
     /// <summary>Temperature T &gt;= 0 in the energy unit.</summary>
     public double Temperature { get; init; }
-    /// <summary>Convergence threshold on the largest residual (constraint: dimensionless; stationarity: energy unit).</summary>
+    /// <summary>
+    /// Convergence threshold on the largest residual (default 1e-10, positive): the constraint n_f + r^2 - Q as it is, the
+    /// stationarity residual divided by the largest model energy E0 (so a model with every energy scaled converges alike).
+    /// </summary>
     public double Tolerance { get; init; } = 1e-10;
     public int MaxIterations { get; init; } = 100;
     /// <summary>k-mesh divisions per reciprocal vector (ignored by momentum-free lattices).</summary>

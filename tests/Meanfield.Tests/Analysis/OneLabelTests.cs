@@ -69,9 +69,9 @@ public class OneLabelTests
             using var doc = JsonDocument.Parse(File.ReadAllText(json));
             var s = doc.RootElement.GetProperty("spectrum");
             Assert.Equal(s.GetProperty("phase").GetString(), row.Spectrum.Phase);
-            // Inside a gap at T > 0 mu is fixed only as tightly as the solver's tolerance: compare relative to its size.
+            // Inside a gap at T > 0, N(mu) is flat to exponential accuracy, so mu is fixed only loosely by N(mu) = N_e.
             double mu = doc.RootElement.GetProperty("mu").GetDouble();
-            Assert.Equal(mu, row.Mu, 1e-8 * Math.Max(1, Math.Abs(mu)));
+            Assert.Equal(mu, row.Mu, 1e-6 * Math.Max(1, Math.Abs(mu)));
             Assert.Equal(s.TryGetProperty("node_count", out var c) ? c.GetInt32() : null, row.Spectrum.NodeCount);
             Assert.Equal(s.TryGetProperty("net_chirality", out var n) ? n.GetInt32() : null, row.Spectrum.NetChirality);
         }
