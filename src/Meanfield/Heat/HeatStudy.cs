@@ -114,8 +114,15 @@ public sealed record HeatStudyResult(
 public static class HeatStudy
 {
     /// <summary>Refinement tolerance of the adaptive DOS: interpolation error over distance from E_F (see
-    /// <see cref="AdaptiveMeshOptions.RelativeTolerance"/>); 0.05 reproduces a tilted cone's beta to about 0.5 %.</summary>
-    public const double RefinementTolerance = 0.05;
+    /// <see cref="AdaptiveMeshOptions.RelativeTolerance"/>); 0.03 reproduces the beta of tilted cones to about 1.5 % (0.05: 2 %, 0.02: 1 %, on the test lattice).</summary>
+    public const double RefinementTolerance = 0.03;
+
+    /// <summary>
+    /// Relative accuracy of C(T) from the adaptive mesh, attached to the curve as its one-sigma uncertainty so that the
+    /// fitted gamma and beta carry the accuracy of the numerics: the error of C/T^3 measured on the tilted test lattice
+    /// is about 0.45 x <see cref="RefinementTolerance"/> (systematic: linear interpolation raises convex cone energies).
+    /// </summary>
+    public const double MeshRelativeAccuracy = 0.5 * RefinementTolerance;
 
     /// <summary>Refinement reaches energies up to this many k_B T_max from E_F: the heat kernels there weigh
     /// below 30^4 e^-30 ~ 1e-7 of their peak.</summary>
@@ -151,13 +158,18 @@ public static class HeatStudy
 
         var search = Search(model, hamiltonian, solutionMu);
         double tSearch = Lap(clock);
-        var (dos, method, kPoints) = Tabulate(model, hamiltonian, search, solutionMu, baseMesh, tMin, tMax, notes);
+        var (dos, method, kPoints, adaptive) = Tabulate(model, hamiltonian, search, solutionMu, baseMesh, tMin, tMax, notes);
         double tMesh = Lap(clock);
         double fermi = dos.GroundStateFermiLevel();
 
         var heat = new QuasiparticleHeat(dos);
         var table = Temperatures(request).Select(heat.At).ToArray();
         var curve = Merge(table, LogGrid(tMin, tMax, LawPoints).Select(heat.At));
+        if (adaptive)
+        {
+            double floor = 1e-12 * curve.MolarHeat.Max();
+            curve = curve.WithSigma(curve.MolarHeat.Select(c => MeshRelativeAccuracy * Math.Max(c, floor)).ToArray());
+        }
         double tHeat = Lap(clock);
 
         var expansion = request.FitWindowK is { } w
@@ -220,23 +232,24 @@ public static class HeatStudy
         return NodeSearch.Find(h, occupied, mu ?? 0);
     }
 
-    // 3D: the adaptive tetrahedron mesh centred on the node energy (or mu), re-centred on the exact Fermi level.
-    // 2D: the uniform tetrahedron (triangle) mesh with nested grids around E_F.
-    private static (TabulatedDos Dos, string Method, int KPoints) Tabulate(
+    // With cones between bands n_occ - 1 and n_occ (3D): the adaptive tetrahedron mesh centred on the node energy,
+    // re-centred on the exact Fermi level. Otherwise (metals, insulators, 2D) the DOS is smooth on the scale of the mesh
+    // or gapped: the uniform tetrahedron (triangle) mesh with nested grids around E_F, as the cones need and a Fermi
+    // surface does not (refining a Fermi surface down to k_B T_min would cost millions of k-points for nothing).
+    private static (TabulatedDos Dos, string Method, int KPoints, bool Adaptive) Tabulate(
         BoundModel model, IBlochSource h, NodeSearchResult? search, double? mu, int baseMesh, double tMin, double tMax,
         List<string> notes)
     {
         double k = model.Unit.Kelvins();
-        if (model.Lattice.Dimension != 3)
+        var typeI = search?.Nodes.Where(n => n.Type == NodeType.TypeI && n.DetVelocity > 0).ToList();
+        if (model.Lattice.Dimension != 3 || typeI is not { Count: > 0 })
         {
             var uniform = new TetrahedronDos(h, new KMesh(model.Lattice, baseMesh));
+            string kind = model.Lattice.Dimension == 3 ? "linear tetrahedron method" : "linear triangle method";
             return (DosTabulation.ForHeat(uniform, model, tMin, tMax),
-                    $"linear triangle method on a Gamma-centred {baseMesh}^2 mesh", uniform.Spectrum.Mesh.Count);
+                    $"{kind} on a Gamma-centred {baseMesh}-division mesh (no cone to resolve)", uniform.Spectrum.Mesh.Count, false);
         }
-        var typeI = search?.Nodes.Where(n => n.Type == NodeType.TypeI && n.DetVelocity > 0).ToList();
-        double reference = typeI is { Count: > 0 }
-            ? Median(typeI.Select(n => search!.ChemicalPotential + n.EnergyOffset))
-            : mu ?? UniformFermiLevel(model, h, baseMesh);
+        double reference = Median(typeI.Select(n => search!.ChemicalPotential + n.EnergyOffset));
         var engine = new AdaptiveTetrahedronDos(h, new AdaptiveMeshOptions
         {
             BaseMesh = baseMesh, ReferenceEnergy = reference, Window = RefinementWindowPerT * tMax / k,
@@ -247,19 +260,13 @@ public static class HeatStudy
         if (engine.BudgetExhausted)
             notes.Add($"the DOS mesh hit its budget of {engine.Options.MaxCells} cells: its worst cell misses the interpolation "
                       + $"tolerance {engine.WorstRemainingRatio:G3} times; C at the lowest temperatures is not resolved");
-        return (DosTabulation.ForHeat(engine, model, tMin, tMax), engine.Describe(), engine.KPoints);
+        return (DosTabulation.ForHeat(engine, model, tMin, tMax), engine.Describe(), engine.KPoints, true);
     }
 
     private static double Median(IEnumerable<double> values)
     {
         var v = values.OrderBy(x => x).ToArray();
         return 0.5 * (v[(v.Length - 1) / 2] + v[v.Length / 2]);
-    }
-
-    private static double UniformFermiLevel(BoundModel model, IBlochSource h, int mesh)
-    {
-        var dos = new TetrahedronDos(h, new KMesh(model.Lattice, mesh)).Compute(new DosOptions { Points = 4001 });
-        return DosTabulation.FermiEnergy(dos.Energies, dos.Integrated, model.ElectronsPerCell);
     }
 
     private static void DescribeNodes(FermiLevelNodes nodes, NodeSearchResult search, BoundModel model, double tMin,

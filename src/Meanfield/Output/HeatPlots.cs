@@ -94,7 +94,7 @@ public static class HeatPlots
         FitLine(plot, e.COverT, e.WindowMaxK, x => x * x, fitLabel, Colors.Orange);
         if (r.Nodes is { Cones: > 0 } n)
             FitLine(plot, t => n.MolarBeta * t * t, top, x => x * x,
-                    $"node term, {n.Cones} tilted cones: β = {1e3 * n.MolarBeta:G4} {BetaUnit}", Colors.Green);
+                    $"node term, {n.Cones} cones, tilt factor 1/(1−w²)² = {n.TiltFactor:G3}: β = {1e3 * n.MolarBeta:G4} {BetaUnit}", Colors.Green);
         if (r.Measured is { } m)
         {
             var mi = Enumerable.Range(0, m.Curve.Count).Where(i => m.Curve.TemperaturesK[i] <= top).ToList();
@@ -112,6 +112,7 @@ public static class HeatPlots
                      fi.Select(i => 1e3 * full.MolarHeat[i] / full.TemperaturesK[i]), "full mean field −T d²F/dT²", Colors.Purple, false);
         }
         plot.Axes.SetLimitsX(0, top * top);
+        if (idx.All(i => r.Curve.MolarHeat[i] >= 0)) plot.Axes.SetLimitsY(0, 1.05e3 * idx.Max(i => r.Curve.MolarHeat[i] / r.Curve.TemperaturesK[i]));
         plot.ShowLegend(Alignment.UpperLeft);
         PlotStyle.Save(plot, path);
     }
@@ -123,7 +124,7 @@ public static class HeatPlots
         var span = plot.Add.HorizontalSpan(Math.Log10(e.WindowMinK), Math.Log10(e.WindowMaxK));
         span.FillStyle.Color = Colors.Blue.WithAlpha(0.10);
         span.LineStyle.Width = 0;
-        span.LegendText = $"fit window {e.WindowMinK:G3}-{e.WindowMaxK:G3} K";
+        span.LegendText = $"fit window of γ + βT² + δT⁴, {e.WindowMinK:G3}-{e.WindowMaxK:G3} K";
         static IEnumerable<double> Log(IEnumerable<double> v) => v.Select(Math.Log10);
         var c = r.Curve;
         var pos = Enumerable.Range(0, c.Count).Where(i => c.MolarHeat[i] > 0).ToList();
@@ -135,7 +136,7 @@ public static class HeatPlots
             s.LineWidth = 1.5f; s.LinePattern = LinePattern.Dashed;
             s.LegendText = $"node term β T³, β = {1e3 * n.MolarBeta:G4} {BetaUnit}";
         }
-        if (r.PowerLaw is { } p) PowerLine(plot, p, $"power law over the window: C ∝ T^{p.Exponent:F2}", Colors.Orange);
+        if (r.PowerLaw is { } p) PowerLine(plot, p, $"power law over the fit window: C ∝ T^{p.Exponent:F2}", Colors.Orange);
         if (r.Measured is { } m)
         {
             var mi = Enumerable.Range(0, m.Curve.Count).Where(i => m.Curve.MolarHeat[i] > 0).ToList();
@@ -145,7 +146,7 @@ public static class HeatPlots
         if (r.DepartureK is { } d)
         {
             var v = plot.Add.VerticalLine(Math.Log10(d), 1, Colors.Gray, LinePattern.Dotted);
-            v.LegendText = $"C leaves the low-T law by {HeatStudy.DeparturePercent} % at {d:G3} K";
+            v.LegendText = $"C leaves γT + βT³ by {HeatStudy.DeparturePercent} % at {d:G3} K";
         }
         foreach (var axis in new ScottPlot.IAxis[] { plot.Axes.Bottom, plot.Axes.Left })
             axis.TickGenerator = new ScottPlot.TickGenerators.NumericAutomatic

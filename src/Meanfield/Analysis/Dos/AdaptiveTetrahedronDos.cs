@@ -343,7 +343,7 @@ public sealed class AdaptiveTetrahedronDos
             }
             double d = Math.Max(0, Math.Max(lo - o.ReferenceEnergy, o.ReferenceEnergy - hi));
             if (d > o.Window) continue;
-            double allowed = Math.Max(o.RelativeTolerance * d, o.FloorTolerance * o.Floor);
+            double allowed = Math.Max(Math.Max(o.RelativeTolerance * d, o.FloorTolerance * o.Floor), o.LinearityTolerance * (hi - lo));
             worst = Math.Max(worst, err / allowed);
         }
         return worst;
