@@ -111,6 +111,11 @@ public static class HeatPlots
                 Line(plot, fi.Select(i => full.TemperaturesK[i] * full.TemperaturesK[i]),
                      fi.Select(i => 1e3 * full.MolarHeat[i] / full.TemperaturesK[i]), "full mean field −T d²F/dT²", Colors.Purple, false);
         }
+        if (r.DepartureK is { } dep && dep <= top)
+        {
+            var v = plot.Add.VerticalLine(dep * dep, 1, Colors.Gray, LinePattern.Dotted);
+            v.LegendText = $"C leaves γT + βT³ by {HeatStudy.DeparturePercent} % at {dep:G3} K";
+        }
         plot.Axes.SetLimitsX(0, top * top);
         if (idx.All(i => r.Curve.MolarHeat[i] >= 0)) plot.Axes.SetLimitsY(0, 1.05e3 * idx.Max(i => r.Curve.MolarHeat[i] / r.Curve.TemperaturesK[i]));
         plot.ShowLegend(Alignment.UpperLeft);
