@@ -195,7 +195,7 @@ public static class HeatStudy
         }
         if (solutionMu is { } mu && Math.Abs(mu - fermi) > tMin / k)
             notes.Add($"the saddle point's mu ({mu:G10} {model.Unit.Symbol()}) lies {mu - fermi:G3} {model.Unit.Symbol()} "
-                      + $"({(mu - fermi) * k:G3} K) from the T -> 0 Fermi level of the resolved DOS (finite T and mesh of the solve); "
+                      + $"({(mu - fermi) * k:G3} K) from the T -> 0 Fermi level of the heat's DOS (finite T and a different mesh in the solve); "
                       + "the heat uses the DOS's own mu(T) at fixed electron count");
 
         HeatComparison? comparison = measured is null ? null

@@ -118,7 +118,7 @@ public static class HeatPlots
         }
         plot.Axes.SetLimitsX(0, top * top);
         if (idx.All(i => r.Curve.MolarHeat[i] >= 0)) plot.Axes.SetLimitsY(0, 1.05e3 * idx.Max(i => r.Curve.MolarHeat[i] / r.Curve.TemperaturesK[i]));
-        plot.ShowLegend(Alignment.UpperLeft);
+        plot.ShowLegend(Alignment.LowerRight); // the curves rise from the lower left: keep them clear
         PlotStyle.Save(plot, path);
     }
 
