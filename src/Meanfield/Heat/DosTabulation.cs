@@ -107,7 +107,8 @@ public static class DosTabulation
             while (i < grid.Length - 2 && dos.Integrated[i + 1] < ne) i++;
             int j = grid.Length - 1;
             while (j > i + 1 && dos.Integrated[j - 1] > ne) j--;
-            var (fermi, rhoF) = engine.FermiLevel(ne, (grid[i], grid[j]));
+            // One grid point more on each side: the grid's counts carry rounding, the engine's search does not.
+            var (fermi, rhoF) = engine.FermiLevel(ne, (grid[Math.Max(i - 1, 0)], grid[Math.Min(j + 1, grid.Length - 1)]));
             // A Fermi level far from where the grid is finest: tabulate again around it (once).
             if (pass == 0 && Math.Abs(fermi - centre) > minTemperatureK / k) { centre = fermi; continue; }
             var e = dos.Energies.ToList(); var rho = dos.Total.ToList(); var n = dos.Integrated.ToList();

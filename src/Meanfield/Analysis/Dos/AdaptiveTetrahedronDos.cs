@@ -382,7 +382,7 @@ public sealed class AdaptiveTetrahedronDos
         var partial = new double[n];
         var steps = new double[n + 1];
         var gate = new object();
-        Sweep(() => new Accumulate(grid), (acc, e, w) => acc.Add(e, w), acc =>
+        Sweep(() => new Accumulate(grid), (acc, e, w, _) => acc.Add(e, w), acc =>
         {
             lock (gate)
                 for (int i = 0; i < n; i++) { total[i] += acc.Total[i]; partial[i] += acc.Partial[i]; steps[i] += acc.Steps[i]; }
@@ -428,20 +428,33 @@ public sealed class AdaptiveTetrahedronDos
             while (b > 0 && dos.Integrated[b - 1] > electrons + tol) b--;
             (lo, hi) = (dos.Energies[a], dos.Energies[Math.Max(b, a + 1)]);
         }
-        var list = Straddling(lo, hi);
-        if (list.Count(lo) > electrons + tol || list.Count(hi) < electrons - tol)
+        int occupied = Math.Abs(electrons - Math.Round(electrons)) < tol ? (int)Math.Round(electrons) : -1;
+        var list = Straddling(lo, hi, occupied);
+        double target = occupied >= 0 ? 0 : electrons; // the list counts the excess over N at integer filling
+        if (list.Count(lo) > target + tol || list.Count(hi) < target - tol)
             throw new ArgumentException($"the Fermi level for {electrons} electrons lies outside [{lo}, {hi}]");
-        double Bisect(double target, bool upper)
+        // Where the exact count crosses N_e (no tolerance: near a node the count departs from N_e only as E^3, so a
+        // tolerance would widen the answer to a false plateau) ...
+        double below = lo, above = hi;
+        for (int it = 0; it < 200 && above - below > 1e-15 * Math.Max(1, Math.Abs(above)); it++)
         {
-            double a = lo, b = hi;
-            for (int it = 0; it < 200 && b - a > 1e-15 * Math.Max(1, Math.Abs(b)); it++)
-            {
-                double mid = 0.5 * (a + b), c = list.Count(mid);
-                if (upper ? c <= target : c < target) a = mid; else b = mid;
-            }
-            return 0.5 * (a + b);
+            double mid = 0.5 * (below + above);
+            if (list.Count(mid) < target) below = mid; else above = mid;
         }
-        double energy = 0.5 * (Bisect(electrons - tol, false) + Bisect(electrons + tol, true));
+        double energy = 0.5 * (below + above);
+        // ... unless it falls in a true gap (no tetrahedron holds states there): then the middle of the gap.
+        if (list.Density(energy) == 0)
+        {
+            double gapLo = lo, gapHi = hi;
+            var e = list.Energies;
+            for (int t = 0; t < list.Weights.Count; t++)
+            {
+                double bottom = e[4 * t], top = e[4 * t + 3];
+                if (top <= energy) gapLo = Math.Max(gapLo, top);
+                else if (bottom >= energy) gapHi = Math.Min(gapHi, bottom);
+            }
+            energy = 0.5 * (gapLo + gapHi);
+        }
         return (energy, list.Density(energy));
     }
 
@@ -453,19 +466,35 @@ public sealed class AdaptiveTetrahedronDos
         return (r.Lo - pad, r.Hi + pad);
     }
 
-    // The tetrahedra whose energy range meets (lo, hi), with the count of those wholly below lo: enough to evaluate
-    // the state count and the DOS anywhere inside the bracket.
-    private sealed class StraddleList
+    // The tetrahedra whose energy range meets (lo, hi), enough to evaluate the count and the DOS inside the bracket.
+    // With an integer filling N the count is kept as the excess over N: electrons in bands >= N minus holes in bands
+    // &lt; N, each a sum of small positive terms, so it stays exact near a node, where it departs from zero only as
+    // E^3 (a plain count would drown that in the rounding of N). Otherwise the plain count below lo is kept.
+    private sealed class StraddleList(int occupied)
     {
-        public double Below;
-        public readonly List<double> Weights = [];
+        public double Offset; // excess (or count) from the tetrahedra wholly outside the bracket
+        public readonly List<double> Weights = []; // negative for a band counted by its holes
         public readonly List<double> Energies = [];
 
+        public void Add(double[] e, double w, int band, double lo, double hi)
+        {
+            bool holes = occupied >= 0 && band < occupied;
+            if (e[3] <= lo) { if (occupied < 0 || !holes) Offset += w; return; }
+            if (e[0] >= hi) { if (holes) Offset -= w; return; }
+            Weights.Add(holes ? -w : w);
+            for (int i = 0; i < 4; i++) Energies.Add(e[i]);
+        }
+
+        // Count below E minus N (integer filling) or count below E.
         public double Count(double energy)
         {
-            double s = Below;
+            double s = Offset;
             var e = System.Runtime.InteropServices.CollectionsMarshal.AsSpan(Energies);
-            for (int t = 0; t < Weights.Count; t++) s += Weights[t] * SimplexKernel.TetraFraction(e.Slice(4 * t, 4), energy);
+            for (int t = 0; t < Weights.Count; t++)
+            {
+                double w = Weights[t], f = SimplexKernel.TetraFraction(e.Slice(4 * t, 4), energy);
+                s += w > 0 ? w * f : w * (1 - f);
+            }
             return s;
         }
 
@@ -473,7 +502,7 @@ public sealed class AdaptiveTetrahedronDos
         {
             double s = 0;
             var e = System.Runtime.InteropServices.CollectionsMarshal.AsSpan(Energies);
-            for (int t = 0; t < Weights.Count; t++) s += Weights[t] * SimplexKernel.TetraDensity(e.Slice(4 * t, 4), energy).D;
+            for (int t = 0; t < Weights.Count; t++) s += Math.Abs(Weights[t]) * SimplexKernel.TetraDensity(e.Slice(4 * t, 4), energy).D;
             return s;
         }
     }
@@ -482,23 +511,17 @@ public sealed class AdaptiveTetrahedronDos
     {
         long count = 0;
         var gate = new object();
-        Sweep(() => new long[1], (c, e, _) => { if (e[3] > lo && e[0] < hi) c[0]++; }, c => { lock (gate) count += c[0]; });
+        Sweep(() => new long[1], (c, e, _, _) => { if (e[3] > lo && e[0] < hi) c[0]++; }, c => { lock (gate) count += c[0]; });
         return count;
     }
 
-    private StraddleList Straddling(double lo, double hi)
+    private StraddleList Straddling(double lo, double hi, int occupied)
     {
-        var list = new StraddleList();
+        var list = new StraddleList(occupied);
         var gate = new object();
-        Sweep(() => new StraddleList(), (s, e, w) =>
+        Sweep(() => new StraddleList(occupied), (s, e, w, band) => s.Add(e, w, band, lo, hi), s =>
         {
-            if (e[3] <= lo) { s.Below += w; return; }
-            if (e[0] >= hi) return;
-            s.Weights.Add(w);
-            for (int i = 0; i < 4; i++) s.Energies.Add(e[i]);
-        }, s =>
-        {
-            lock (gate) { list.Below += s.Below; list.Weights.AddRange(s.Weights); list.Energies.AddRange(s.Energies); }
+            lock (gate) { list.Offset += s.Offset; list.Weights.AddRange(s.Weights); list.Energies.AddRange(s.Energies); }
         });
         return list;
     }
@@ -554,7 +577,7 @@ public sealed class AdaptiveTetrahedronDos
 
     // Calls add(sorted corner energies, weight) for every (tetrahedron, band): the base mesh for bands not refined,
     // the leaves for the refined ones. Parallel over cells with one state per thread, merged by finish.
-    private void Sweep<T>(Func<T> local, Action<T, double[], double> add, Action<T> finish)
+    private void Sweep<T>(Func<T> local, Action<T, double[], double, int> add, Action<T> finish)
     {
         int bands = Bands, first = _first, active = _active;
         var baseE = _base.Energies;
@@ -568,8 +591,8 @@ public sealed class AdaptiveTetrahedronDos
                     if (n >= first && n < first + active) continue;
                     for (int c = 0; c < 4; c++) loc.E[c] = baseE[corners[4 * s + c] * bands + n];
                     Sort4(loc.E);
-                    if (loc.E[3] > loc.E[0]) add(loc.State, loc.E, baseWeight);
-                    else Degenerate(loc.State, loc.E, baseWeight, add);
+                    if (loc.E[3] > loc.E[0]) add(loc.State, loc.E, baseWeight, n);
+                    else Degenerate(loc.State, loc.E, baseWeight, n, add);
                 }
                 return loc;
             }, loc => finish(loc.State));
@@ -597,8 +620,8 @@ public sealed class AdaptiveTetrahedronDos
                         loc.E[0] = energy[centre * active + a]; loc.E[1] = energy[k1 * active + a];
                         loc.E[2] = energy[k2 * active + a]; loc.E[3] = energy[k3 * active + a];
                         Sort4(loc.E);
-                        if (loc.E[3] > loc.E[0]) add(loc.State, loc.E, w12);
-                        else Degenerate(loc.State, loc.E, w12, add);
+                        if (loc.E[3] > loc.E[0]) add(loc.State, loc.E, w12, first + a);
+                        else Degenerate(loc.State, loc.E, w12, first + a, add);
                     }
                 }
                 return loc;
@@ -612,8 +635,8 @@ public sealed class AdaptiveTetrahedronDos
                     loc.E[0] = energy[k0 * active + a]; loc.E[1] = energy[k1 * active + a];
                     loc.E[2] = energy[k2 * active + a]; loc.E[3] = energy[k3 * active + a];
                     Sort4(loc.E);
-                    if (loc.E[3] > loc.E[0]) add(loc.State, loc.E, w);
-                    else Degenerate(loc.State, loc.E, w, add);
+                    if (loc.E[3] > loc.E[0]) add(loc.State, loc.E, w, first + a);
+                    else Degenerate(loc.State, loc.E, w, first + a, add);
                 }
             }
             return loc;
@@ -622,11 +645,11 @@ public sealed class AdaptiveTetrahedronDos
 
     // A flat tetrahedron (all corners equal) is a step in the count: spread it over a relative 1e-12 so that the
     // formulas stay finite, as a delta function would be on any grid coarser than that.
-    private static void Degenerate<T>(T state, double[] e, double w, Action<T, double[], double> add)
+    private static void Degenerate<T>(T state, double[] e, double w, int band, Action<T, double[], double, int> add)
     {
         double h = 1e-12 * Math.Max(1, Math.Abs(e[0]));
         e[0] -= 1.5 * h; e[1] -= 0.5 * h; e[2] += 0.5 * h; e[3] += 1.5 * h;
-        add(state, e, w);
+        add(state, e, w, band);
     }
 
     private static void Sort4(double[] e)
