@@ -68,7 +68,7 @@ public static class SpectrumSummary
         var phase = PhaseClassifier.Classify(solution.Decoupled, solution.WholeFilling, gaps, nodes);
         double? beta = null;
         if (req.Heat && nodes is not null && phase.Phase is Phase.WeylSemimetal or Phase.DiracSemimetal
-            && FermiLevelNodes.From(nodes, model, nodes.Tolerances.Pinning) is { } fln)
+            && FermiLevelNodes.From(nodes, model, mu, nodes.Tolerances.Pinning) is { Cones: > 0 } fln)
             beta = 1e3 * fln.MolarBeta;
         var columns = new SpectrumColumns
         {

@@ -27,16 +27,25 @@ public static class DosTabulation
     /// </summary>
     public static TabulatedDos FromDensityOfStates(DensityOfStates coarse, IReadOnlyList<DensityOfStates> finer, BoundModel model)
     {
-        var (e, rho, n) = (coarse.Energies.ToList(), coarse.Total.ToList(), coarse.Integrated.ToList());
+        var (e, rho, n) = Splice((coarse.Energies, coarse.Total, coarse.Integrated),
+                                 finer.Select(f => (f.Energies, f.Total, f.Integrated)).ToList());
+        return Build(e, rho, n, model.ElectronsPerCell, model.Unit, model.FormulaUnitsPerCell);
+    }
+
+    // Each finer table replaces the coarser points over its own range; all come from one engine, so their counts agree.
+    private static (List<double> E, List<double> Rho, List<double> N) Splice(
+        (double[] E, double[] Rho, double[] N) coarse, IReadOnlyList<(double[] E, double[] Rho, double[] N)> finer)
+    {
+        var (e, rho, n) = (coarse.E.ToList(), coarse.Rho.ToList(), coarse.N.ToList());
         foreach (var fine in finer)
         {
-            double lo = fine.Energies[0], hi = fine.Energies[^1];
+            double lo = fine.E[0], hi = fine.E[^1];
             int a = e.FindIndex(x => x >= lo), b = e.FindLastIndex(x => x <= hi);
             if (a < 0 || b < a) throw new ArgumentException("a finer DOS grid must lie inside the grid before it");
             e.RemoveRange(a, b - a + 1); rho.RemoveRange(a, b - a + 1); n.RemoveRange(a, b - a + 1);
-            e.InsertRange(a, fine.Energies); rho.InsertRange(a, fine.Total); n.InsertRange(a, fine.Integrated);
+            e.InsertRange(a, fine.E); rho.InsertRange(a, fine.Rho); n.InsertRange(a, fine.N);
         }
-        return Build(e, rho, n, model.ElectronsPerCell, model.Unit, model.FormulaUnitsPerCell);
+        return (e, rho, n);
     }
 
     /// <summary>
@@ -68,6 +77,84 @@ public static class DosTabulation
         }
         return FromDensityOfStates(coarse, levels, model);
     }
+
+    /// <summary>
+    /// The DOS of an <see cref="AdaptiveTetrahedronDos"/> for heat from <paramref name="minTemperatureK"/> to
+    /// <paramref name="maxTemperatureK"/>, on one graded grid around the engine's exact T = 0 Fermi level E_F: the step
+    /// grows as <see cref="GradedStepFraction"/> x |E - E_F| between k_B T_min/4 and k_B T_max/4 out to
+    /// E_F +- 60 k_B T_max, and is the coarse step of <paramref name="coarsePoints"/> over the spectrum beyond. E_F is
+    /// itself a grid point, so the tabulated ground state lands on it (on the node of a compensated semimetal).
+    /// </summary>
+    /// <remarks>
+    /// Why graded: near a cone rho ~ E^2 varies on the scale |E - E_F|, and linear interpolation on a step
+    /// eta |E| errs by about eta^2/4 of rho there (5e-4 at eta = 0.05), while a uniform step fine enough for T_min
+    /// over the window of T_max would need (T_max/T_min) times more energies. One sweep of the tetrahedra computes
+    /// the grid; a second, over the few that straddle E_F, fixes E_F.
+    /// </remarks>
+    public static TabulatedDos ForHeat(AdaptiveTetrahedronDos engine, BoundModel model, double minTemperatureK,
+                                       double maxTemperatureK, int coarsePoints = 2001)
+    {
+        if (!(minTemperatureK > 0 && maxTemperatureK >= minTemperatureK)) throw new ArgumentException("need 0 < T_min <= T_max");
+        double k = model.Unit.Kelvins(), ne = model.ElectronsPerCell;
+        var (lo, hi) = engine.SpectrumRange();
+        double pad = 0.05 * Math.Max(hi - lo, 1e-9);
+        double centre = engine.Options.ReferenceEnergy;
+        for (int pass = 0; ; pass++)
+        {
+            var grid = GradedGrid(centre, minTemperatureK / k, maxTemperatureK / k, lo - pad, hi + pad, coarsePoints);
+            var dos = engine.Compute(grid);
+            int i = 0;
+            while (i < grid.Length - 2 && dos.Integrated[i + 1] < ne) i++;
+            int j = grid.Length - 1;
+            while (j > i + 1 && dos.Integrated[j - 1] > ne) j--;
+            // One grid point more on each side: the grid's counts carry rounding, the engine's search does not.
+            var (fermi, rhoF) = engine.FermiLevel(ne, (grid[Math.Max(i - 1, 0)], grid[Math.Min(j + 1, grid.Length - 1)]));
+            // A Fermi level far from where the grid is finest: tabulate again around it (once).
+            if (pass == 0 && Math.Abs(fermi - centre) > minTemperatureK / k) { centre = fermi; continue; }
+            var e = dos.Energies.ToList(); var rho = dos.Total.ToList(); var n = dos.Integrated.ToList();
+            int at = e.BinarySearch(fermi);
+            if (at < 0)
+            {
+                at = ~at;
+                e.Insert(at, fermi); rho.Insert(at, rhoF); n.Insert(at, ne);
+            }
+            return Build(e, rho, n, ne, model.Unit, model.FormulaUnitsPerCell);
+        }
+    }
+
+    /// <summary>Growth of the graded grid's step with the distance from E_F (fraction of |E - E_F|).</summary>
+    public const double GradedStepFraction = 0.05;
+
+    /// <summary>
+    /// Ascending energies: centre, then steps eta |E - centre| clamped to [tMin/4, tMax/4] out to centre +- 60 tMax,
+    /// then the uniform coarse step of <paramref name="coarsePoints"/> over [lo, hi] (temperatures as energies).
+    /// </summary>
+    public static double[] GradedGrid(double centre, double tMin, double tMax, double lo, double hi, int coarsePoints)
+    {
+        var side = new List<double>();
+        double x = 0, reach = FineHalfWidthPerT * tMax;
+        while (x < reach)
+        {
+            x += Math.Clamp(GradedStepFraction * x, FineStepPerT * tMin, FineStepPerT * tMax);
+            side.Add(x);
+        }
+        double coarse = (hi - lo) / (coarsePoints - 1);
+        var up = new List<double>(side);
+        for (double y = x + coarse; centre + y < hi; y += coarse) up.Add(y);
+        var down = new List<double>(side);
+        for (double y = x + coarse; centre - y > lo; y += coarse) down.Add(y);
+        var grid = new List<double>(up.Count + down.Count + 1);
+        for (int i = down.Count - 1; i >= 0; i--) grid.Add(centre - down[i]);
+        grid.Add(centre);
+        foreach (var y in up) grid.Add(centre + y);
+        return grid.ToArray();
+    }
+
+    /// <summary>Step of the grid for temperature T, in units of k_B T: the kernels vary on the scale T.</summary>
+    public const double FineStepPerT = 0.25;
+
+    /// <summary>Half-width of the grid for temperature T, in units of k_B T: the kernels fall as e^-|E - mu|/T.</summary>
+    public const double FineHalfWidthPerT = 60;
 
     /// <summary>
     /// Energy at which the integrated DOS (ascending, on the same grid) reaches <paramref name="electrons"/>: linear

@@ -12,6 +12,12 @@ namespace Meanfield.Heat;
 /// = (7 pi^4/15) T^3 / (2 pi^2 hbar^3 v^3) = (7 pi^2/30) k_B^4 T^3 / (hbar^3 v^3) per node per unit volume
 /// (k_B restored; the integral over the real line is 7 pi^4/15, Ashcroft &amp; Mermin, Solid State Physics (1976),
 /// app. C). An anisotropic cone H = hbar q.v.sigma maps onto the isotropic one by q' = v q, so v^3 -> |det v_ij|.
+/// A tilted cone H = E0 + v0.q + sum_ij q_i v_ij sigma_j is, with p = v^T q, E = E0 + w.p +- |p|, w = v^-1 v0. For
+/// |w| &lt; 1 (type I) the upper cone below E0 + eps fills |p| &lt; eps / (1 + |w| cos theta), so it holds
+/// (1/(2 pi)^3) Int dOmega eps^3 / (3 (1 + |w| cos theta)^3) = eps^3 / (6 pi^2 (1 - w^2)^2) states per p-volume
+/// (Int dOmega (1 + w cos theta)^-3 = 4 pi / (1 - w^2)^2), the lower cone the same below E0 - eps: the DOS and the T^3
+/// coefficient are those of the untilted cone times <see cref="TiltFactor"/> = 1 / (1 - w^2)^2 (derived and checked
+/// numerically in the tests). For |w| &gt; 1 (type II) the node has electron and hole pockets and no T^3 law.
 /// Velocities enter as hbar v in (energy unit x angstrom); the cell volume in angstrom^3.
 /// </remarks>
 /// <param name="Unit">Energy unit of hbar v; temperatures are kelvin.</param>
@@ -23,15 +29,29 @@ public sealed record NodeHeat(EnergyUnit Unit, double CellVolume, double Formula
     public static readonly double Prefactor = 7 * Math.PI * Math.PI / 30;
 
     /// <summary>
-    /// The T^3 coefficient beta (J mol^-1 K^-4) of <paramref name="nodes"/> cones, each with
-    /// |det(hbar v)| = <paramref name="velocityDeterminant"/> in (energy unit x angstrom)^3.
+    /// 1 / (1 - w^2)^2: how much a tilt of ratio <paramref name="tiltRatio"/> = |v^-1 v0| (0 &lt;= w &lt; 1, type I)
+    /// raises the DOS and the T^3 coefficient of a cone. <see cref="ArgumentException"/> for w &lt; 0, w &gt;= 1 (type II:
+    /// no T^3 law) or NaN.
     /// </summary>
-    public double MolarBeta(double velocityDeterminant, int nodes = 1)
+    public static double TiltFactor(double tiltRatio)
+    {
+        if (!(tiltRatio >= 0 && tiltRatio < 1))
+            throw new ArgumentException($"tilt ratio {tiltRatio}: a T^3 law needs a type-I cone, 0 <= w < 1");
+        double u = 1 - tiltRatio * tiltRatio;
+        return 1 / (u * u);
+    }
+
+    /// <summary>
+    /// The T^3 coefficient beta (J mol^-1 K^-4) of <paramref name="nodes"/> cones, each with
+    /// |det(hbar v)| = <paramref name="velocityDeterminant"/> in (energy unit x angstrom)^3 and tilt ratio
+    /// <paramref name="tiltRatio"/> (default 0, untilted; see <see cref="TiltFactor"/>).
+    /// </summary>
+    public double MolarBeta(double velocityDeterminant, int nodes = 1, double tiltRatio = 0)
     {
         if (!(velocityDeterminant > 0)) throw new ArgumentException("the velocity determinant must be positive");
         if (nodes < 1) throw new ArgumentException("at least one node is needed");
         double kelvinsPerUnit = Unit.Kelvins();
-        double perCellPerUnitT3 = nodes * Prefactor * CellVolume / velocityDeterminant; // k_B per cell per (energy unit)^3
+        double perCellPerUnitT3 = nodes * Prefactor * CellVolume / velocityDeterminant * TiltFactor(tiltRatio); // k_B per cell per (energy unit)^3
         return HeatUnits.MolarFromPerCell(perCellPerUnitT3, FormulaUnitsPerCell)
                / (kelvinsPerUnit * kelvinsPerUnit * kelvinsPerUnit);
     }
