@@ -71,7 +71,7 @@ public sealed record SolutionDocument
                                                            g.BareLevel + g.Lambda - solution.Mu, g.FOccupation, g.Z))],
             Parameters = model.Parameters.ToDictionary(p => p.Key, p => p.Value),
             Sampling = new(sp.Sampling, solution.Mesh is null ? null : solution.Mesh.N1, solution.Mesh?.Shifted,
-                           sp.Temperature > 0 ? "fermi-dirac" : "step"),
+                           sp.Temperature > 0 ? "fermi-dirac" : solution.Mesh is null ? "step" : "tetrahedra"),
             ModelPath = string.IsNullOrEmpty(model.SourcePath) ? "" : Path.GetFullPath(model.SourcePath), ModelSha256 = Provenance.Hash(model.SourceText), ToolVersion = Provenance.ToolVersion,
             Backend = Provenance.Backend, Created = Provenance.NowUtc(), WallSeconds = sp.WallSeconds, Notes = sp.Notes,
         };

@@ -55,6 +55,23 @@ public class HeavyBandNodeTests
     }
 
     [Fact]
+    public void AZeroTemperatureSolutionFileWithMuAtTheNodesLoadsAndGivesTheSameNodes()
+    {
+        // The solution file carries mu at the node energy (inside the window of no states): loading it must accept
+        // that mu as a saddle point and `nodes` must report the nodes pinned there (electron count; common practice).
+        using var cli = new CliHarness();
+        var json = cli.PathOf("s.json");
+        Assert.Equal(ExitCodes.Success, cli.Run("solve", CliHarness.ShippedModel("weyl-diamond.toml"), "--set", "dt=0", "--set", "m=60",
+            "-T", "0", "--mesh", "15", "--out", json));
+        var nodes = cli.PathOf("n.json");
+        Assert.Equal(ExitCodes.Success, cli.Run("nodes", json, "--out", nodes));
+        using var doc = System.Text.Json.JsonDocument.Parse(File.ReadAllText(nodes));
+        Assert.Equal("node-energy", doc.RootElement.GetProperty("mu_rule").GetString());
+        Assert.Equal(12, NodeReport.Totals(doc).GetProperty("pinned_at_mu").GetInt32());
+        Assert.Equal("weyl-semimetal", doc.RootElement.GetProperty("phase").GetProperty("label").GetString());
+    }
+
+    [Fact]
     public void AtTwoKelvinTheSameNodesComeBackWithTheirOffsetFromMu()
     {
         var (_, cold) = Solve(ShippedWeylText(), Symmetric, 0, 27);
