@@ -5,7 +5,7 @@ namespace Meanfield.Tests.Heat;
 
 public class NodeHeatTests
 {
-    // Per node C/V = (7 pi^2/30) k_B^4 T^3 / (hbar^3 v^3) (PHYSICS.md sec. 4, derived in NodeHeat's remarks), written
+    // Per node C/V = (7 pi^2/30) k_B^4 T^3 / (hbar^3 v^3) (derived in NodeHeat's remarks; Ashcroft & Mermin, Solid State Physics (1976), app. C for the integral), written
     // here directly in SI with CODATA 2018 constants and the molar volume V_m = V_cell N_A / Z: an independent route
     // through the unit conversions of NodeHeat.MolarBeta and VelocityFromBeta.
     [Fact]
@@ -27,7 +27,7 @@ public class NodeHeatTests
         Assert.InRange(v.MetresPerSecond, 6000, 6200);
     }
 
-    // Anisotropic cone: v^3 -> |det v_ij| (PHYSICS.md sec. 4); a diagonal tensor with a rotation keeps |det| = v1 v2 v3.
+    // Anisotropic cone: v^3 -> |det v_ij| (common practice: q' = v q maps it onto the isotropic cone); a diagonal tensor with a rotation keeps |det| = v1 v2 v3.
     [Fact]
     public void AnisotropicConeUsesDeterminant()
     {

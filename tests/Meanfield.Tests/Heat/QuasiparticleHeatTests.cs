@@ -25,7 +25,7 @@ public class QuasiparticleHeatTests
 
     // Sommerfeld: C/T -> gamma = (pi^2/3) k_B^2 rho(E_F) (Ashcroft & Mermin, Solid State Physics (1976), ch. 2, eq. 2.80).
     // 1 state/eV per formula unit gives gamma = (pi^2/3) k_B^2 N_A / eV = 2.35714 mJ mol^-1 K^-2 (derived here from the
-    // CODATA 2018 constants; value also listed in the project's PHYSICS.md sec. 5). Grid spacing 0.25 eV >> T.
+    // CODATA 2018 constants). Grid spacing 0.25 eV >> T.
     [Theory]
     [InlineData(1.0)]
     [InlineData(0.01)]
@@ -96,7 +96,7 @@ public class QuasiparticleHeatTests
     }
 
     // Weyl node: rho(E) = V E^2 / (2 pi^2 (hbar v)^3) per cell gives C = (7 pi^4/15) c T^3 with c = V/(2 pi^2 (hbar v)^3),
-    // i.e. (7 pi^2/30) T^3 V / (hbar v)^3: the closed form of NodeHeat (PHYSICS.md sec. 4; integral from Ashcroft &
+    // i.e. (7 pi^2/30) T^3 V / (hbar v)^3: the closed form of NodeHeat (derived in NodeHeat's remarks; integral from Ashcroft &
     // Mermin app. C). Checked against the tabulated-DOS engine on a grid of spacing T/40.
     [Theory]
     [InlineData(2.0)]

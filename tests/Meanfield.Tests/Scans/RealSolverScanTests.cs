@@ -51,7 +51,7 @@ public sealed class RealSolverScanTests : IDisposable
         for (int i = 0; i < 9; i++)
         {
             Assert.True(converged[i]);
-            // Two electrons per site fill the lower hybridized band: a Kondo insulator (PHYSICS.md sec. 2, common practice).
+            // Two electrons per site fill the lower hybridized band: a Kondo insulator (Hewson, The Kondo Problem to Heavy Fermions (1993), ch. 7; common practice).
             Assert.Equal("kondo-insulator", phase[i]);
             Assert.InRange(r[i], 1e-3, 1);
             // Hybridized bands E = (e + ef~)/2 -+ sqrt(((e - ef~)/2)^2 + (rV)^2) (Hewson, The Kondo Problem to Heavy

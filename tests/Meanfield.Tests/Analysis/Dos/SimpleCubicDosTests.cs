@@ -29,7 +29,7 @@ public class SimpleCubicDosTests
         // Second moment <eps^2> = z t^2 = 6 t^2 (Economou, ch. 5); linear interpolation inside the tetrahedra
         // lowers it by O(1/N^2) (about 1 % at 24^3).
         Assert.InRange(second / (6 * T * T), 0.98, 1.002);
-        // Van Hove cusp at 2t with rho(2t) = 0.1446993444 / t (PHYSICS.md sec. 5, recomputed from Watson-type integrals).
+        // Van Hove cusp at 2t with rho(2t) = 0.1446993444 / t (Economou, Green's Functions in Quantum Physics, ch. 5; value recomputed from Watson-type lattice integrals, from memory).
         Assert.InRange(peakE / T, 1.85, 2.15);
         Assert.InRange(peak * T, 0.1447 * 0.97, 0.1447 * 1.03);
     }

@@ -29,7 +29,7 @@ public class DiamondNodeTests
     [Fact]
     public void BondDistortionOpensGapTwiceDtAtX()
     {
-        // PHYSICS.md sec. 5 after Fu, Kane & Mele (2007): a distortion dt on the [111] bond gives E(X) = +-|dt|.
+        // Fu, Kane & Mele, PRL 98, 106803 (2007): a distortion dt on the [111] bond gives E(X) = +-|dt|.
         const double dt = 0.3;
         var src = AnalysisModels.FuKaneMele(1.0, 0.125, dt);
         var ws = new BlochWorkspace(src);

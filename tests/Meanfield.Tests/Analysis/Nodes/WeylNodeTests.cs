@@ -64,7 +64,7 @@ public class WeylNodeTests
     public void LowEnergyDosFollowsTheConeLaw()
     {
         // rho(E) = V_cell E^2 / (2 pi^2 |det v|) per node per cell: a sphere |v q| < E holds (4 pi / 3) E^3 / |det v|
-        // of k-space, i.e. V_cell E^3 / (6 pi^2 |det v|) states per cell (standard; see PHYSICS.md sec. 4).
+        // of k-space, i.e. V_cell E^3 / (6 pi^2 |det v|) states per cell (common practice: the cone volume counted in k-space).
         // Window 0.2 t .. 0.3 t: above the tetrahedra that contain the node, below the curvature of the bands.
         var src = AnalysisModels.LatticeWeyl(1.0, Math.PI / 2, 1.0);
         var nodes = NodeSearch.Find(src, 1, 0).Nodes;
