@@ -2,7 +2,7 @@ using Meanfield.Analysis;
 using Meanfield.Analysis.Dos;
 using Meanfield.Analysis.Nodes;
 using Meanfield.Bloch;
-using Meanfield.Lattices;
+using Meanfield.Solver;
 
 namespace Meanfield.Solutions;
 
@@ -52,14 +52,13 @@ public static class FermiLevelPlacement
     }
 
     /// <summary>
-    /// The window of no states around the electron count on <paramref name="mesh"/>: (highest energy of band
-    /// occupied - 1, lowest of band occupied), or null when the two bands overlap on the mesh.
+    /// The window of no states around the electron count on a diagonalised mesh: (highest energy of band occupied - 1,
+    /// lowest of band occupied), or null when the two bands overlap on the mesh.
     /// </summary>
-    public static (double Lower, double Upper)? Window(IBlochSource source, KMesh mesh, int occupied)
+    public static FermiWindow? Window(MeshSpectrum spectrum, int occupied)
     {
-        var sp = MeshSpectrum.Compute(source, mesh, withProjections: false);
         double v = double.NegativeInfinity, c = double.PositiveInfinity;
-        for (int k = 0; k < mesh.Count; k++) { v = Math.Max(v, sp.Energy(k, occupied - 1)); c = Math.Min(c, sp.Energy(k, occupied)); }
-        return c > v ? (v, c) : null;
+        for (int k = 0; k < spectrum.Mesh.Count; k++) { v = Math.Max(v, spectrum.Energy(k, occupied - 1)); c = Math.Min(c, spectrum.Energy(k, occupied)); }
+        return c > v ? new FermiWindow(v, c) : null;
     }
 }

@@ -1,9 +1,7 @@
-using System.Globalization;
 using Meanfield.Analysis.Nodes;
 using Meanfield.Binding;
 using Meanfield.Bloch;
 using Meanfield.Lattices;
-using Meanfield.Models;
 using Meanfield.Output;
 using Meanfield.Renormalization;
 using Meanfield.Solver;
@@ -127,8 +125,12 @@ public sealed class Solution
         if (meshDivisions < 2) throw new ArgumentException($"mesh must be at least 2 divisions, got {meshDivisions}");
         var ham = new BlochHamiltonian(model);
         var mesh = new KMesh(model.Lattice, meshDivisions, shifted: false);
-        double mu = Analysis.MeshFermiLevel.Find(Analysis.Dos.MeshSpectrum.Compute(ham, mesh, withProjections: false), model.ElectronsPerCell);
-        var placement = Place(ham, model, mesh, mu, 0, ChemicalPotentialRule.GroundStateInBand, decoupled: false, window: null);
+        // One pass over the mesh gives both the ordered-state mu and the window of no states that placement refines.
+        var spectrum = Analysis.Dos.MeshSpectrum.Compute(ham, mesh, withProjections: false);
+        double mu = Analysis.MeshFermiLevel.Find(spectrum, model.ElectronsPerCell);
+        int occ = (int)Math.Round(model.ElectronsPerCell);
+        var window = occ >= 1 && occ < ham.Size ? FermiLevelPlacement.Window(spectrum, occ) : null;
+        var placement = Place(ham, model, mesh, mu, 0, ChemicalPotentialRule.GroundStateInBand, decoupled: false, window);
         return new Solution(model, ham, null, null, mesh, placement, 0, false, SolutionOrigin.BareModel, null);
     }
 
@@ -139,8 +141,7 @@ public sealed class Solution
         int occ = (int)Math.Round(ne);
         bool whole = ne >= 1 && ne < ham.Size && Math.Abs(ne - occ) <= WholeFillingTolerance;
         if (temperature > 0 || mesh is null || decoupled || !whole) return new(mu, rule, null);
-        // The solver's tetrahedron filling reports the window of no states; without it (a bare model) the mesh gives it.
-        var w = window is { } fw ? (fw.Width > 0 ? (fw.Lower, fw.Upper) : ((double, double)?)null) : FermiLevelPlacement.Window(ham, mesh, occ);
-        return w is { } open ? FermiLevelPlacement.InWindow(ham, occ, open.Item1, open.Item2) : new(mu, rule, null);
+        // The window of no states: from the solver's tetrahedron filling, or from the bare model's mesh.
+        return window is { Width: > 0 } w ? FermiLevelPlacement.InWindow(ham, occ, w.Lower, w.Upper) : new(mu, rule, null);
     }
 }
