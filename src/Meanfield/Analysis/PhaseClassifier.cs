@@ -19,6 +19,7 @@ namespace Meanfield.Analysis;
 ///    renormalized bands); otherwise Unresolved (the bands touch on the mesh but no touching refined);
 /// 7. nodes: all pinned at mu -> WeylSemimetal when some chirality is nonzero, else DiracSemimetal; some off mu ->
 ///    the same with pockets.
+/// A Kondo insulator is then given its topological class by <see cref="WithTopology"/>.
 /// </summary>
 public static class PhaseClassifier
 {
@@ -60,11 +61,48 @@ public static class PhaseClassifier
                    string.Create(inv, $"{nodes.Nodes.Count - pinned} of {nodes.Nodes.Count} {kind} nodes off mu (up to {worst:G4}): pockets around them{sumText}"));
     }
 
+    /// <summary>
+    /// The class of a Kondo insulator from its invariants: 3D with time reversal, Z2 (nu0; nu1 nu2 nu3) -> trivial,
+    /// weak or strong (Fu, Kane &amp; Mele, PRL 98, 106803 (2007); for the heavy bands Dzero, Sun, Galitski &amp;
+    /// Coleman, PRL 104, 106408 (2010)); 2D: Z2 with time reversal, the Chern number without (Fukui, Hatsugai &amp;
+    /// Suzuki, J. Phys. Soc. Jpn. 74, 1674 (2005)) -> trivial or topological. An invariant that is not determined keeps
+    /// the plain <see cref="Phase.KondoInsulator"/> label, and the reason says why: never a class the calculation did
+    /// not settle. Any other label is returned unchanged.
+    /// </summary>
+    /// <param name="label">The label from <see cref="Classify"/>.</param>
+    /// <param name="invariants">The invariants of the filled bands; null when they were not computed.</param>
+    public static PhaseLabel WithTopology(PhaseLabel label, Topology.InvariantReport? invariants)
+    {
+        if (label.Phase != Phase.KondoInsulator || invariants is null) return label;
+        var z2 = invariants.Z2;
+        if (invariants.Chern is { } chern)
+        {
+            if (chern.Status != Topology.InvariantStatus.Determined || chern.Chern is not { } c)
+                return label with { Reason = $"{label.Reason}; Chern number not determined ({chern.Reason})" };
+            return c == 0
+                ? new(Phase.TrivialKondoInsulator, $"{label.Reason}; Chern number 0")
+                : new(Phase.TopologicalKondoInsulator, $"{label.Reason}; Chern number {c}");
+        }
+        if (z2.Status != Topology.InvariantStatus.Determined || z2.Indices is not { } x)
+            return label with { Reason = $"{label.Reason}; topological class not determined: {z2.Reason}" };
+        var phase = x.Class switch
+        {
+            Topology.Z2Class.Trivial => Phase.TrivialKondoInsulator,
+            Topology.Z2Class.Weak => Phase.WeakTopologicalKondoInsulator,
+            _ => x.Dimension == 2 ? Phase.TopologicalKondoInsulator : Phase.StrongTopologicalKondoInsulator,
+        };
+        return new(phase, $"{label.Reason}; Z2 {x} ({z2.Reason})");
+    }
+
     /// <summary>File form of a phase: lower-case words joined by '-'.</summary>
     public static string Name(Phase phase) => phase switch
     {
         Phase.Decoupled => "decoupled",
         Phase.KondoInsulator => "kondo-insulator",
+        Phase.TrivialKondoInsulator => "trivial-kondo-insulator",
+        Phase.WeakTopologicalKondoInsulator => "weak-topological-kondo-insulator",
+        Phase.StrongTopologicalKondoInsulator => "strong-topological-kondo-insulator",
+        Phase.TopologicalKondoInsulator => "topological-kondo-insulator",
         Phase.WeylSemimetal => "weyl-semimetal",
         Phase.DiracSemimetal => "dirac-semimetal",
         Phase.WeylSemimetalWithPockets => "weyl-semimetal-with-pockets",

@@ -33,4 +33,8 @@ public sealed record SpectrumColumns
     public double? GammaMilliJoulePerMolK2 { get; init; }
     /// <summary>T^3 coefficient of the pinned type-I cones (mJ mol^-1 K^-4).</summary>
     public double? BetaMilliJoulePerMolK4 { get; init; }
+    /// <summary>Z2 indices of a Kondo insulator's filled bands, "(nu0;nu1nu2nu3)" in 3D or "nu" in 2D; null when not determined or not a Kondo insulator.</summary>
+    public string? Z2 { get; init; }
+    /// <summary>Chern number of a 2D Kondo insulator without time reversal; null otherwise.</summary>
+    public int? ChernNumber { get; init; }
 }

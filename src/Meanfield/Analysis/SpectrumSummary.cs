@@ -1,6 +1,7 @@
 using Meanfield.Analysis.Dos;
 using Meanfield.Analysis.Gaps;
 using Meanfield.Analysis.Nodes;
+using Meanfield.Analysis.Topology;
 using Meanfield.Heat;
 using Meanfield.Lattices;
 using Meanfield.Solutions;
@@ -17,6 +18,11 @@ public sealed record SpectrumRequest
     public bool Dos { get; init; } = true;
     /// <summary>Compute the node heat coefficient beta (default true).</summary>
     public bool Heat { get; init; } = true;
+    /// <summary>
+    /// Give a Kondo insulator its topological class from the invariants of the filled bands (Z2, or the 2D Chern number
+    /// without time reversal), computed with the search mesh as gap-check mesh; with inversion symmetry by the parity formula alone (default true).
+    /// </summary>
+    public bool Topology { get; init; } = true;
 }
 
 /// <summary>
@@ -30,8 +36,9 @@ public sealed record SpectrumRequest
 /// <param name="Nodes">The node search (null for a partly filled band or no k-space).</param>
 /// <param name="DosAtMu">DOS at mu when asked for.</param>
 /// <param name="Columns">The flat numbers for files.</param>
+/// <param name="Invariants">The invariants of a Kondo insulator's filled bands when asked for; null otherwise.</param>
 public sealed record SpectrumDigest(double Mu, PhaseLabel? Phase, GapReport? Gaps, NodeSearchResult? Nodes, DosValue? DosAtMu,
-                                    SpectrumColumns Columns);
+                                    SpectrumColumns Columns, InvariantReport? Invariants = null);
 
 /// <summary>Computes the <see cref="SpectrumDigest"/> of a <see cref="Solution"/>.</summary>
 public static class SpectrumSummary
@@ -66,6 +73,12 @@ public static class SpectrumSummary
             gaps = Gaps(solution, occ, nodes);
         }
         var phase = PhaseClassifier.Classify(solution.Decoupled, solution.WholeFilling, gaps, nodes);
+        InvariantReport? invariants = null;
+        if (req.Topology && phase.Phase == Phase.KondoInsulator)
+        {
+            invariants = InvariantReport.Compute(solution.Hamiltonian, solution.OccupiedBands, new Z2Options { GapMesh = req.SearchMesh, ParityAloneWhenInversion = true });
+            phase = PhaseClassifier.WithTopology(phase, invariants);
+        }
         double? beta = null;
         if (req.Heat && nodes is not null && phase.Phase is Phase.WeylSemimetal or Phase.DiracSemimetal
             && FermiLevelNodes.From(nodes, model, mu, nodes.Tolerances.Pinning) is { Cones: > 0 } fln)
@@ -80,8 +93,10 @@ public static class SpectrumSummary
             NetChirality = nodes?.ChiralitySum, AbsChirality = nodes?.AbsChirality,
             GammaMilliJoulePerMolK2 = req.Dos && dos is { } d ? 1e3 * SommerfeldGamma(d.Total, model) : null,
             BetaMilliJoulePerMolK4 = beta,
+            Z2 = invariants?.Z2.Indices?.ToString(),
+            ChernNumber = invariants?.Chern?.Chern,
         };
-        return new(mu, phase, gaps, nodes, dos, columns);
+        return new(mu, phase, gaps, nodes, dos, columns, invariants);
     }
 
     // Gaps on the coarse search mesh, with the refined nodes included: a touching between mesh points closes the gap.

@@ -48,6 +48,8 @@ internal static class ScanColumns
         c.Add(new NullableColumn<int>("abs_chirality", "", r => r.Result.Spectrum.AbsChirality, (d, v) => d.Spectrum = d.Spectrum with { AbsChirality = v }));
         c.Add(new NullableColumn<double>("gamma_mJ_per_mol_K2", "mJ mol^-1 K^-2", r => r.Result.Spectrum.GammaMilliJoulePerMolK2, (d, v) => d.Spectrum = d.Spectrum with { GammaMilliJoulePerMolK2 = v }));
         c.Add(new NullableColumn<double>("beta_mJ_per_mol_K4", "mJ mol^-1 K^-4", r => r.Result.Spectrum.BetaMilliJoulePerMolK4, (d, v) => d.Spectrum = d.Spectrum with { BetaMilliJoulePerMolK4 = v }));
+        c.Add(new TextColumn("z2", "(nu0;nu1nu2nu3) in 3D, nu in 2D", r => r.Result.Spectrum.Z2, (d, v) => d.Spectrum = d.Spectrum with { Z2 = v }));
+        c.Add(new NullableColumn<int>("chern_number", "", r => r.Result.Spectrum.ChernNumber, (d, v) => d.Spectrum = d.Spectrum with { ChernNumber = v }));
         c.Add(new TextColumn("phase", "", r => r.Result.Spectrum.Phase, (d, v) => d.Spectrum = d.Spectrum with { Phase = v }));
         c.Add(new TextColumn("phase_reason", "", r => r.Result.Spectrum.PhaseReason, (d, v) => d.Spectrum = d.Spectrum with { PhaseReason = v }));
         if (s.IncludeErrorColumn) c.Add(new TextColumn("error", "", r => r.Result.Error, (d, v) => d.Error = v));

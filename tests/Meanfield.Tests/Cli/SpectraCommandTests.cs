@@ -188,22 +188,24 @@ public sealed class SpectraCommandTests
         using var doc = JsonDocument.Parse(File.ReadAllText(json));
         var root = doc.RootElement.GetProperty("spectrum");
         // Two electrons fill the lower hybridized band of the periodic Anderson lattice: a Kondo insulator
-        // (Hewson, The Kondo Problem to Heavy Fermions, 1993, ch. 7 (from memory)).
-        Assert.Equal("kondo-insulator", root.GetProperty("phase").GetString());
+        // (Hewson, The Kondo Problem to Heavy Fermions, 1993, ch. 7 (from memory)); without spin-orbit coupling the
+        // bands are two spin copies, so every Z2 index vanishes (common practice).
+        Assert.Equal("trivial-kondo-insulator", root.GetProperty("phase").GetString());
+        Assert.Equal("(0;000)", root.GetProperty("z2").GetString());
         Assert.False(string.IsNullOrEmpty(root.GetProperty("phase_reason").GetString()));
         double direct = root.GetProperty("direct_gap").GetDouble(), indirect = root.GetProperty("indirect_gap").GetDouble();
         Assert.True(indirect > 0);
         Assert.True(direct >= indirect);
         Assert.Equal(0.0, root.GetProperty("dos_fermi_total").GetDouble(), 12);
         Assert.Equal(0.0, root.GetProperty("dos_fermi_correlated").GetDouble(), 12);
-        Assert.Contains("phase        kondo-insulator", cli.Out);
+        Assert.Contains("phase        trivial-kondo-insulator", cli.Out);
 
         // The solution feeds `nodes`: an insulator has none, and the label agrees.
         var nodes = cli.PathOf("nodes.json");
         Assert.Equal(ExitCodes.Success, cli.Run("nodes", json, "--search-mesh", "8", "--out", nodes));
         using var n = JsonDocument.Parse(File.ReadAllText(nodes));
         Assert.Equal(0, n.RootElement.GetProperty("totals").GetProperty("nodes").GetInt32());
-        Assert.Equal("kondo-insulator", n.RootElement.GetProperty("phase").GetProperty("label").GetString());
+        Assert.Equal("trivial-kondo-insulator", n.RootElement.GetProperty("phase").GetProperty("label").GetString());
     }
 
     [Fact]

@@ -38,7 +38,7 @@ public sealed class ScanRunnerTests : IDisposable
             "point_id", "shard", "axis_V", "axis_ratio", "param_V", "param_lso", "param_m", "temperature_K", "converged",
             "iterations", "residual_norm", "mu", "free_energy", "r_f", "lambda_f", "n_f_f", "direct_gap", "indirect_gap",
             "dos_fermi_total", "dos_fermi_correlated", "node_count", "pinned_nodes", "max_node_offset", "net_chirality", "abs_chirality",
-            "gamma_mJ_per_mol_K2", "beta_mJ_per_mol_K4", "phase", "phase_reason", "error", "wall_seconds", "warm_started",
+            "gamma_mJ_per_mol_K2", "beta_mJ_per_mol_K4", "z2", "chern_number", "phase", "phase_reason", "error", "wall_seconds", "warm_started",
         ];
         Assert.Equal(expected, names);
 

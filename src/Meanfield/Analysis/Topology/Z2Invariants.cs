@@ -16,6 +16,12 @@ public sealed record Z2Options
     public int LoopPoints { get; init; } = 32;
     /// <summary>Give the indices of the lowest bands even when they overlap the next band in energy (no indirect gap). Default false.</summary>
     public bool AllowBandOverlap { get; init; }
+    /// <summary>
+    /// When inversion is a symmetry and every TRIM parity is resolved, stop at the parity formula and skip the
+    /// Wannier-centre flow (a few hundred times cheaper; what phase labels of scan points use). Default false: both
+    /// methods, and their agreement reported.
+    /// </summary>
+    public bool ParityAloneWhenInversion { get; init; }
 }
 
 /// <summary>
@@ -95,9 +101,10 @@ public static class Z2Invariants
             else notes.Add("the parities at some TRIM are not resolved");
         }
 
-        var flows = Flows(source, occupied, dim, opt);
+        var flows = fromParity is not null && opt.ParityAloneWhenInversion ? [] : Flows(source, occupied, dim, opt);
         Z2Indices? fromFlow = null;
-        if (flows.Any(f => !f.Resolved)) notes.Add("the Wannier-centre flow is not resolved on some plane");
+        if (flows.Count == 0) { }
+        else if (flows.Any(f => !f.Resolved)) notes.Add("the Wannier-centre flow is not resolved on some plane");
         else if (dim == 2) fromFlow = new Z2Indices(2, flows[0].Z2, []);
         else
         {
