@@ -31,11 +31,13 @@ public static class DipoleCommand
             var (mu, t, mesh) = response.Parse(parse, mu0, model.Unit, positiveTemperature: true);
 
             var r = CurvatureDipole.Compute(src.Hamiltonian, mu, t, mesh);
+            var cone = ConeDipole.ForSolution(src);
 
             var meta = new Dictionary<string, string>
             {
                 ["model"] = model.Name, ["source"] = src.OriginText, ["model_sha256"] = Provenance.Hash(model.SourceText), ["tool_version"] = Provenance.ToolVersion,
             };
+            if (cone is { Complete: true }) meta["cone_limit_D"] = string.Join(" ", cone.Tensor.Select(x => x.ToString("R", System.Globalization.CultureInfo.InvariantCulture)));
             ResponseTables.WriteDipole(r, outPath, mu0, model.Unit, meta);
             var picture = Path.ChangeExtension(outPath, ".png");
             ResponsePlots.SaveDipole(r, picture, $"{model.Name}: Berry curvature dipole", mu0, model.Unit);
@@ -47,6 +49,9 @@ public static class DipoleCommand
             double worst = 0;
             foreach (var d in r.Tensor) worst = Math.Max(worst, d.Max(Math.Abs));
             o.WriteLine($"largest |D_ab| on the grid: {ResponseOptions.Format(worst)}{(r.Unit == "1" ? "" : " " + r.Unit)}");
+            if (cone is not null)
+                o.WriteLine($"linear-cone limit of {cone.Cones} Weyl cones (any mu, T inside the linear range): [" + string.Join("; ", Enumerable.Range(0, 3).Select(a => string.Join(" ", cone.Tensor.Skip(3 * a).Take(3).Select(ResponseOptions.Format)))) + "]"
+                            + (cone.Complete ? "" : $"; incomplete, left out: {string.Join("; ", cone.Skipped)}"));
             o.WriteLine($"wrote {outPath} and {picture}");
             return ExitCodes.Success;
         });

@@ -72,8 +72,11 @@ public sealed class CurvatureSamples
 
     /// <summary>Samples the zone of <paramref name="source"/>.</summary>
     /// <exception cref="ArgumentException">A lattice without momentum.</exception>
-    /// <exception cref="ArgumentOutOfRangeException">An invalid <paramref name="mesh"/>.</exception>
-    public static CurvatureSamples Compute(IBlochSource source, ResponseMesh mesh)
+    /// <param name="source">The Bloch Hamiltonian.</param>
+    /// <param name="mesh">The sampling.</param>
+    /// <param name="sampleLimit">Most samples allowed; default: what fits in <see cref="Solver.MeshMemory.UsableFraction"/> of the machine's memory.</param>
+    /// <exception cref="ArgumentOutOfRangeException">An invalid <paramref name="mesh"/>, or a refinement that needs more samples than allowed (the message gives the numbers).</exception>
+    public static CurvatureSamples Compute(IBlochSource source, ResponseMesh mesh, long? sampleLimit = null)
     {
         mesh.Validate();
         var lattice = source.Model.Lattice;
@@ -99,13 +102,21 @@ public sealed class CurvatureSamples
 
         var cells = Enumerable.Range(0, nk).Where(k => refine[k]).ToArray();
         var sub = new Chunk[cells.Length];
-        Parallel.For(0, cells.Length, () => new BandGeometry(source, velocity), (c, _, g) =>
+        // Refinement can multiply the samples by 27 per level: count them against the machine's memory as they are
+        // made, and stop with the numbers instead of being killed by the system.
+        long budget = sampleLimit ?? (long)(Solver.MeshMemory.UsableFraction * Solver.MeshMemory.Available / BytesPerSample(nb));
+        var count = new SampleBudget(budget - nk);
+        Parallel.For(0, cells.Length, () => new BandGeometry(source, velocity), (c, state, g) =>
         {
             var chunk = new Chunk(nb);
-            Split(g, km.Cartesian(cells[c]), e1, e2, e3, dim, w0, h0, 1, mesh, chunk);
+            Split(g, km.Cartesian(cells[c]), e1, e2, e3, dim, w0, h0, 1, mesh, chunk, count);
             sub[c] = chunk;
+            if (count.Exceeded) state.Stop();
             return g;
         }, _ => { });
+        if (count.Exceeded)
+            throw new ArgumentOutOfRangeException(nameof(mesh), FormattableString.Invariant(
+                $"refinement of {cells.Length:N0} of {nk:N0} cells to {mesh.RefinementLevels} level(s) needs more than {budget:N0} samples (about {Solver.MeshMemory.Gigabytes(budget * BytesPerSample(nb))}, {100 * Solver.MeshMemory.UsableFraction:F0}% of this machine's memory); use fewer refinement levels or a coarser base mesh"));
 
         int total = nk - cells.Length + sub.Sum(s => s.Weights.Count);
         var W = new double[total]; var E = new double[total * nb]; var V = new double[total * nb * 3]; var O = new double[total * nb * 3];
@@ -130,6 +141,16 @@ public sealed class CurvatureSamples
         };
     }
 
+    // Weight, energies, velocities and curvatures of one sample, doubled for the growth of the lists that collect them.
+    private static long BytesPerSample(int bands) => 2L * 8 * (1 + 7L * bands);
+
+    private sealed class SampleBudget(long limit)
+    {
+        private long _left = limit;
+        public bool Exceeded => Volatile.Read(ref _left) < 0;
+        public bool Take(long n) => Interlocked.Add(ref _left, -n) >= 0;
+    }
+
     private static bool NeedsRefinement(BandGeometry g, double h, ResponseMesh mesh)
     {
         for (int n = 0; n < g.Size; n++)
@@ -148,8 +169,9 @@ public sealed class CurvatureSamples
 
     // Replaces a cell (centre k, edges e1 e2 e3, weight w) by its 3^d sub-cells, recursing while they still need it.
     private static void Split(BandGeometry g, Vec3 k, Vec3 e1, Vec3 e2, Vec3 e3, int dim, double w, double h, int level,
-                              ResponseMesh mesh, Chunk chunk)
+                              ResponseMesh mesh, Chunk chunk, SampleBudget budget)
     {
+        if (!budget.Take(dim == 3 ? 27 : 9)) return;
         Vec3 s1 = e1 / 3, s2 = e2 / 3, s3 = e3 / 3;
         double ws = w / (dim == 3 ? 27 : 9), hs = h / 3;
         int r3 = dim == 3 ? 1 : 0;
@@ -160,7 +182,7 @@ public sealed class CurvatureSamples
                     var q = k + a * s1 + b * s2 + c * s3;
                     g.Compute(q);
                     if (level < mesh.RefinementLevels && NeedsRefinement(g, hs, mesh))
-                        Split(g, q, s1, s2, s3, dim, ws, hs, level + 1, mesh, chunk);
+                        Split(g, q, s1, s2, s3, dim, ws, hs, level + 1, mesh, chunk, budget);
                     else chunk.Add(ws, g);
                 }
     }
