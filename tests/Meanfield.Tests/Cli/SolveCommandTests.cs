@@ -27,7 +27,7 @@ public class SolveCommandTests
             Assert.True(site.TryGetProperty(field, out _), $"missing site field {field}");
         double r = site.GetProperty("r").GetDouble();
         Assert.Equal(r * r, site.GetProperty("z").GetDouble(), 12);
-        // n_f + r^2 = Q = 1 (the constraint, PHYSICS section 2)
+        // n_f + r^2 = Q = 1: the slave-boson constraint (Coleman, PRB 29, 3035 (1984); Read & Newns, J. Phys. C 16, 3273 (1983))
         Assert.Equal(1.0, site.GetProperty("n_f").GetDouble() + r * r, 8);
     }
 

@@ -92,7 +92,7 @@ public class FuKaneMeleTests
     [Fact]
     public void Without_spin_orbit_the_bands_touch_along_X_W()
     {
-        // With lambda = 0 the nearest-neighbour bands touch on the whole X-W line (PHYSICS brief; the four bond phases
+        // With lambda = 0 the nearest-neighbour bands touch on the whole X-W line (Fu, Kane & Mele, PRL 98, 106803 (2007): the four bond phases
         // cancel there), so the spin-orbit term is what gaps the generic point: a check that it is generated at all.
         var w = Cubic(1, 0.5, 0);
         Assert.All(Spectrum(Diamond(0), w), e => Assert.True(Math.Abs(e) < 1e-9));
