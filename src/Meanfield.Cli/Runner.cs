@@ -12,7 +12,11 @@ public static class Runner
         var error = stderr ?? Console.Error;
         try
         {
-            var config = new InvocationConfiguration { Output = output, Error = error, EnableDefaultExceptionHandler = false };
+            // The version and the help speak of the program by its command name and its one version string.
+            if (args is ["--version"]) { output.WriteLine(Output.Provenance.ToolVersion); return ExitCodes.Success; }
+            bool help = args.Any(a => a is "-h" or "--help" or "-?" or "/?" or "/h");
+            var helpText = help ? new StringWriter() : null;
+            var config = new InvocationConfiguration { Output = helpText ?? output, Error = error, EnableDefaultExceptionHandler = false };
             var parse = root.Parse(args);
             if (parse.Errors.Count > 0)
             {
@@ -23,7 +27,10 @@ public static class Runner
                 error.WriteLine($"see `meanfield {string.Join(" ", names)}{(names.Count > 0 ? " " : "")}--help` for the options");
                 return ExitCodes.Usage;
             }
-            return parse.Invoke(config);
+            int code = parse.Invoke(config);
+            // The usage lines start with the name the runtime gives the root (the assembly or test host): say `meanfield`.
+            if (helpText is not null) output.Write(helpText.ToString().Replace($"  {root.Name} ", "  meanfield "));
+            return code;
         }
         catch (ModelError e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
         catch (UserInputException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }

@@ -18,9 +18,7 @@ public static class ScanMetadata
     public const string Shard = "shard";
     public const string EnergyUnit = "energy_unit";
 
-    public static string Version =>
-        typeof(ScanMetadata).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion
-        ?? typeof(ScanMetadata).Assembly.GetName().Version?.ToString() ?? "unknown";
+    public static string Version => Output.Provenance.ToolVersion;
 
     public static Dictionary<string, string> Build(ScanProvenance provenance, ScanGrid grid, ScanSchema schema, ShardSpec shard) => new()
     {
