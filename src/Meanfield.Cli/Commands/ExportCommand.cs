@@ -17,8 +17,8 @@ public static class ExportCommand
         {
             var outPath = parse.GetValue(output)!;
             var ext = Path.GetExtension(outPath).ToLowerInvariant();
-            if (!ModelExport.Extensions.Contains(ext)) throw new UserInputException($"--out {outPath}: use a .json, .csv or .parquet file name");
             CommonOptions.RefuseOverwrite(parse.GetValue(solution.Input)!, [outPath]);
+            if (!ModelExport.Extensions.Contains(ext)) throw new UserInputException($"--out {outPath}: use a .json, .csv or .parquet file name");
             var src = solution.Resolve(parse, parse.InvocationConfiguration.Output);
             var model = ModelExport.Write(src, outPath);
             parse.InvocationConfiguration.Output.WriteLine(

@@ -24,8 +24,11 @@ public sealed record ExportedModel(Binding.BoundModel Model, OneBodyHeader Heade
 /// per matrix element) and Parquet (the same pairs as file metadata, units and descriptions also in every column's
 /// own metadata). Each row is one matrix element t = &lt;from, cell 0 | H | to, cell R&gt;.
 /// </summary>
-public static class OneBodyModelFiles
+public static partial class OneBodyModelFiles
 {
+    [System.Text.RegularExpressions.GeneratedRegex("\"format\"\\s*:\\s*\"meanfield-one-body-model/1\"")]
+    private static partial System.Text.RegularExpressions.Regex JsonFormatTag();
+
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
     /// <summary>The element columns for energy unit <paramref name="unit"/>: name, unit ("1" for counts, "text" for names), meaning.</summary>
@@ -369,7 +372,7 @@ public static class OneBodyModelFiles
             int n = reader.ReadBlock(head, 0, head.Length);
             var start = new string(head, 0, n);
             return ext == ".csv" ? start.Contains($"# format = {OneBodyHeader.FormatTag}", StringComparison.Ordinal)
-                                 : start.Contains($"\"format\": \"{OneBodyHeader.FormatTag}\"", StringComparison.Ordinal);
+                                 : JsonFormatTag().IsMatch(start);
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException or InvalidDataException or NotSupportedException) { return false; }
     }
