@@ -86,7 +86,8 @@ public class OneBodyModelTests
                           Math.Round(m.GetProperty("reduced")[2].GetDouble(), 6), m.GetProperty("chirality").GetInt32()))
             .Order()];
         Assert.Equal(Signed(a), Signed(b));
-        Assert.Contains("exported model", b.RootElement.GetProperty("source").GetString());
+        Assert.Equal(Path.GetFullPath(exported), b.RootElement.GetProperty("source").GetString());
+        Assert.Contains("exported model", b.RootElement.GetProperty("source_kind").GetString());
     }
 
     [Fact]
