@@ -44,8 +44,15 @@ public static class ResultProvenance
             new("tool_version", Provenance.ToolVersion),
             new("created", Provenance.NowUtc()),
         };
-        // The model text itself, as scans carry it (an exported model's text is the file named by source).
-        if (solution.Origin != SolutionOrigin.ExportedModel) pairs.Add(new("model_text", m.SourceText));
+        // The model text itself, as scans carry it (an exported model's text is the file named by source; it names
+        // what it was exported from).
+        if (solution.ExportHeader is { } h)
+        {
+            pairs.Add(new("exported_from", h.Source));
+            pairs.Add(new("exported_from_model_path", h.ModelPath));
+            pairs.Add(new("exported_from_model_sha256", h.ModelSha256));
+        }
+        else pairs.Add(new("model_text", m.SourceText));
         return pairs;
     }
 }
