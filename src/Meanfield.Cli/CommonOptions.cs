@@ -53,9 +53,15 @@ public static class CommonOptions
         Output.OutputGuard.Check(outputs, inputs);
     }
 
+    /// <summary>A model file bound with <paramref name="overrides"/>, or an exported one-body model (which takes none).</summary>
     public static BoundModel LoadModel(string path, IReadOnlyDictionary<string, string>? overrides)
     {
         if (!File.Exists(path)) throw new UserInputException($"{path}: model file not found");
+        if (Solutions.SolutionInput.Recognise(path) == Solutions.InputKind.ExportedModel)
+        {
+            if (Solutions.SolutionInput.RefusedForExport(path, overrides is { Count: > 0 }, false, false) is { } refusal) throw new UserInputException(refusal);
+            return Output.OneBodyModelFiles.Load(path).Model;
+        }
         return ModelBinder.Bind(ModelFile.Load(path), overrides);
     }
 

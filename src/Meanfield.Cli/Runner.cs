@@ -34,6 +34,7 @@ public static class Runner
         }
         catch (ModelError e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
         catch (UserInputException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
+        catch (Output.OneBodyModelError e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
         catch (InvalidDataException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
         catch (FileNotFoundException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
         catch (DirectoryNotFoundException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }

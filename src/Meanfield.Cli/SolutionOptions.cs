@@ -25,13 +25,23 @@ public sealed class SolutionOptions
         Open(parse.GetValue(Input)!, parse.GetValue(Set), parse.GetValue(Temperature), parse.GetValue(Mesh), parse.GetValue(Bare), log);
 
     /// <summary>
-    /// A solution file (.json) as written; a model file (.toml) solved on the fly (its one-line summary goes to
-    /// <paramref name="log"/>), or taken bare with <paramref name="bare"/> or when it has no correlated shell.
+    /// A solution file (.json) as written; an exported one-body model (.json, .csv, .parquet from `export`) as it
+    /// stands; a model file (.toml) solved on the fly (its one-line summary goes to <paramref name="log"/>), or taken
+    /// bare with <paramref name="bare"/> or when it has no correlated shell.
     /// </summary>
     public static Solution Open(string input, string[]? sets, string? temperature, int? mesh, bool bare, TextWriter log)
     {
-        if (input.EndsWith(".json", StringComparison.OrdinalIgnoreCase))
-            return Solution.Load(input, CommonOptions.ParseSets(sets));
+        switch (SolutionInput.Recognise(input))
+        {
+            case InputKind.ExportedModel:
+                if (SolutionInput.RefusedForExport(input, sets is { Length: > 0 }, temperature is not null, bare) is { } refusal)
+                    throw new UserInputException(refusal);
+                if (mesh is < Models.PhysicalRange.MinMesh or > Models.PhysicalRange.MaxMesh)
+                    throw new UserInputException($"--mesh {mesh}: use {Models.PhysicalRange.MinMesh}..{Models.PhysicalRange.MaxMesh} divisions");
+                return Solution.FromExport(Output.OneBodyModelFiles.Load(input), mesh);
+            case InputKind.SolutionFile:
+                return Solution.Load(input, CommonOptions.ParseSets(sets));
+        }
         var model = CommonOptions.LoadModel(input, CommonOptions.ParseSets(sets));
         if (bare || model.Shells.Count == 0)
         {

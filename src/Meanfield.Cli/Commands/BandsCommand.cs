@@ -32,9 +32,7 @@ public static class BandsCommand
             var spec = parse.GetValue(path)!;
             var bandPath = spec == "auto" ? BandPath.Default(src.Model.Lattice) : BandPath.Parse(spec, src.Model.Lattice);
             var bands = BandStructure.Compute(src.Hamiltonian, bandPath.Sample(count));
-            var metadata = new Dictionary<string, string> { ["source"] = src.OriginText, ["model_sha256"] = Provenance.Hash(src.Model.SourceText), ["tool_version"] = Provenance.ToolVersion };
-            metadata["chemical_potential"] = src.Mu.ToString("R", System.Globalization.CultureInfo.InvariantCulture);
-            BandTableWriter.Write(bands, outPath, metadata);
+            BandTableWriter.Write(bands, outPath, ResultProvenance.Of(src), src.Mu);
             var picture = Path.ChangeExtension(outPath, ".png");
             var title = $"{src.Model.Name}: {(src.Origin == Solutions.SolutionOrigin.BareModel ? "bare bands" : "renormalized bands")}";
             BandPlot.Save(bands, picture, title, src.Model.Unit, src.Mu, colourByCorrelatedWeight: !parse.GetValue(weight) && src.Model.Shells.Count > 0);

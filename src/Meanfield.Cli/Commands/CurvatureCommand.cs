@@ -23,7 +23,7 @@ public static class CurvatureCommand
         };
         var grid = new Option<int>("--grid") { Description = "Plaquettes along each span", DefaultValueFactory = _ => 48 };
         var searchMesh = NodesCommand.SearchMesh(12);
-        var command = new Command("curvature", "Berry curvature of the occupied bands on a plane of the zone: CSV table and heatmap (PNG next to it)")
+        var command = new Command("curvature", "Berry curvature of the occupied bands on a plane of the zone: table (CSV or Parquet by extension) and heatmap (PNG next to it)")
             { output, plane, grid, searchMesh };
         solution.AddTo(command);
         command.SetAction(parse =>
@@ -31,7 +31,7 @@ public static class CurvatureCommand
             var o = parse.InvocationConfiguration.Output;
             var err = parse.InvocationConfiguration.Error;
             var outPath = parse.GetValue(output)!;
-            if (!outPath.EndsWith(".csv", StringComparison.OrdinalIgnoreCase)) throw new UserInputException($"--out {outPath}: use a .csv file name");
+            if (Path.GetExtension(outPath).ToLowerInvariant() is not (".csv" or ".parquet")) throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name");
             CommonOptions.RefuseOverwrite(parse.GetValue(solution.Input)!, [outPath, Path.ChangeExtension(outPath, ".png")]);
             var (origin, span1, span2) = ParsePlane(parse.GetValue(plane)!);
             int n = parse.GetValue(grid);
@@ -52,10 +52,8 @@ public static class CurvatureCommand
             var inPlane = PlaneNodes.Find(model.Lattice, origin, span1, span2, nodes.Nodes, 1e-4 * bMin);
 
             var inv = CultureInfo.InvariantCulture;
-            var meta = new Dictionary<string, string>
+            var meta = new Dictionary<string, string>(ResultProvenance.Of(src))
             {
-                ["source"] = src.OriginText, ["model"] = model.Name, ["model_sha256"] = Provenance.Hash(model.SourceText),
-                ["tool_version"] = Provenance.ToolVersion,
                 ["nodes_in_plane"] = string.Join(" ", inPlane.Select(p => string.Create(inv, $"(s={p.S:F4} t={p.T:F4} chirality={(p.Chirality is { } c ? c.ToString("+0;-0;0", inv) : "undetermined")})"))),
             };
             var picture = Path.ChangeExtension(outPath, ".png");

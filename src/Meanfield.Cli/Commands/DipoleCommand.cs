@@ -35,7 +35,7 @@ public static class DipoleCommand
 
             var meta = new Dictionary<string, string>
             {
-                ["model"] = model.Name, ["source"] = src.OriginText, ["model_sha256"] = Provenance.Hash(model.SourceText), ["tool_version"] = Provenance.ToolVersion,
+                ["model"] = model.Name, ["source"] = ResultProvenance.SourceFile(src), ["source_kind"] = src.OriginText, ["model_sha256"] = Provenance.Hash(model.SourceText), ["tool_version"] = Provenance.ToolVersion,
             };
             if (cone is { Complete: true }) meta["cone_limit_D"] = string.Join(" ", cone.Tensor.Select(x => x.ToString("R", System.Globalization.CultureInfo.InvariantCulture)));
             ResponseTables.WriteDipole(r, outPath, mu0, model.Unit, meta);

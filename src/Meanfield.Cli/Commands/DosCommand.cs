@@ -68,13 +68,7 @@ public static class DosCommand
             double mu = src.Mu;
             var atMu = tetra.DosAtEnergy(mu);
 
-            var meta = new Dictionary<string, string>
-            {
-                ["source"] = src.OriginText, ["model"] = model.Name, ["model_sha256"] = Provenance.Hash(model.SourceText),
-                ["tool_version"] = Provenance.ToolVersion, ["mesh"] = kmesh.ToString(),
-                ["mu_rule"] = SolutionDocument.RuleName(src.MuRule),
-            };
-            DosTableWriter.Write(dos, mu, model.Unit, outPath, meta);
+            DosTableWriter.Write(dos, mu, model.Unit, outPath, [new("mesh", kmesh.ToString()), .. ResultProvenance.Of(src)]);
             var picture = Path.ChangeExtension(outPath, ".png");
             DosPlot.Save(dos, mu, model.Unit, picture, $"{model.Name}: {(src.Origin == Solutions.SolutionOrigin.BareModel ? "bare" : "renormalized")} DOS");
 

@@ -1,36 +1,28 @@
 using System.CommandLine;
-using System.Text.Json;
-using Meanfield.Bloch;
 using Meanfield.Output;
-using Meanfield.Renormalization;
 
 namespace Meanfield.Cli.Commands;
 
-/// <summary>`meanfield export SOLUTION --format json|hopping-table --out FILE`: the renormalized one-body model.</summary>
+/// <summary>`meanfield export INPUT --out FILE.json|.csv|.parquet`: the (renormalized) one-body model for other codes.</summary>
 public static class ExportCommand
 {
     public static Command Build()
     {
-        var input = new Argument<string>("SOLUTION") { Description = "A solution file from `solve`" };
-        var format = new Option<string>("--format") { Description = "json or hopping-table", DefaultValueFactory = _ => "json" };
-        format.AcceptOnlyFromAmong("json", "hopping-table");
+        var solution = new SolutionOptions();
         var output = CommonOptions.Out();
-        var command = new Command("export", "Write the renormalized tight-binding model (r-scaled hybridization, shifted f levels, mu) for other codes") { input, format, output };
+        var command = new Command("export", "Write the one-body model (a solution's renormalized model: r-scaled hybridization, shifted f levels, mu) "
+            + "as a table of matrix elements: JSON, CSV or Parquet by the extension of --out") { output };
+        solution.AddTo(command);
         command.SetAction(parse =>
         {
-            var path = parse.GetValue(input)!;
-            if (!path.EndsWith(".json", StringComparison.OrdinalIgnoreCase)) throw new UserInputException($"{path}: export needs a solution file (.json) from `solve`");
-            CommonOptions.RefuseOverwrite(path, [parse.GetValue(output)!]);
-            var src = Solutions.Solution.Load(path);
-            var amp = src.Amplitudes!;
-            var renormalized = RenormalizedModel.Build(src.Model, amp);
             var outPath = parse.GetValue(output)!;
-            var comment = $"meanfield {Provenance.ToolVersion} renormalized model of {src.Model.Name}; energies in {Units.EnergyUnits.Symbol(src.Model.Unit)}; chemical potential {src.Mu:R}; model sha256 {Provenance.Hash(src.Model.SourceText)}";
-            if (parse.GetValue(format) == "hopping-table")
-                HoppingTable.FromModel(renormalized, comment).Save(outPath);
-            else
-                AtomicFile.WriteText(outPath, RenormalizedModelJson.Write(renormalized, src.Mu, comment));
-            parse.InvocationConfiguration.Output.WriteLine($"wrote {outPath}");
+            var ext = Path.GetExtension(outPath).ToLowerInvariant();
+            CommonOptions.RefuseOverwrite(parse.GetValue(solution.Input)!, [outPath]);
+            if (!ModelExport.Extensions.Contains(ext)) throw new UserInputException($"--out {outPath}: use a .json, .csv or .parquet file name");
+            var src = solution.Resolve(parse, parse.InvocationConfiguration.Output);
+            var model = ModelExport.Write(src, outPath);
+            parse.InvocationConfiguration.Output.WriteLine(
+                $"wrote {outPath} ({model.Elements.Count} matrix elements, {model.Header.Orbitals.Count * model.Header.Flavours.Count} basis states, mu = {model.Header.Mu:G10} {Units.EnergyUnits.Symbol(model.Header.Unit)})");
             return ExitCodes.Success;
         });
         return command;

@@ -47,7 +47,7 @@ public static class FacetCommand
             var src = solution.Resolve(parse, o);
             var watch = System.Diagnostics.Stopwatch.StartNew();
             var report = SurfaceStudy.Run(src.Hamiltonian, src.Mu, request);
-            var meta = new Dictionary<string, string> { ["source"] = src.OriginText, ["model_sha256"] = Provenance.Hash(src.Model.SourceText), ["tool_version"] = Provenance.ToolVersion };
+            var meta = new Dictionary<string, string> { ["source"] = ResultProvenance.SourceFile(src), ["source_kind"] = src.OriginText, ["model_sha256"] = Provenance.Hash(src.Model.SourceText), ["tool_version"] = Provenance.ToolVersion };
             SurfaceTableWriter.Write(report, outPath, meta);
             var picture = Path.ChangeExtension(outPath, ".png");
             var c = report.Cut;

@@ -34,7 +34,7 @@ public static class HallCommand
 
             var meta = new Dictionary<string, string>
             {
-                ["model"] = model.Name, ["source"] = src.OriginText, ["model_sha256"] = Provenance.Hash(model.SourceText), ["tool_version"] = Provenance.ToolVersion,
+                ["model"] = model.Name, ["source"] = ResultProvenance.SourceFile(src), ["source_kind"] = src.OriginText, ["model_sha256"] = Provenance.Hash(model.SourceText), ["tool_version"] = Provenance.ToolVersion,
             };
             ResponseTables.WriteHall(r, outPath, mu0, model.Unit, meta);
             var picture = Path.ChangeExtension(outPath, ".png");

@@ -36,7 +36,7 @@ public static class HeatCommand
         {
             var o = parse.InvocationConfiguration.Output;
             string outPath = parse.GetValue(output)!;
-            if (!outPath.EndsWith(".csv", StringComparison.OrdinalIgnoreCase)) throw new UserInputException($"--out {outPath}: use a .csv file name");
+            if (Path.GetExtension(outPath).ToLowerInvariant() is not (".csv" or ".parquet")) throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name");
             foreach (var f in new[] { parse.GetValue(measured), parse.GetValue(reference) })
                 if (f is not null && !File.Exists(f)) throw new UserInputException($"{f}: file not found");
             var request = new HeatStudyRequest
@@ -48,7 +48,7 @@ public static class HeatCommand
                 DosMesh = parse.GetValue(dosMesh),
             };
             try { request.Validate(); } catch (ArgumentException e) { throw new UserInputException(e.Message); }
-            CommonOptions.RefuseOverwrite(parse.GetValue(input)!, [outPath, Path.ChangeExtension(outPath, ".residuals.csv"), Path.ChangeExtension(outPath, ".png"),
+            CommonOptions.RefuseOverwrite(parse.GetValue(input)!, [outPath, Path.ChangeExtension(outPath, ".residuals" + Path.GetExtension(outPath)), Path.ChangeExtension(outPath, ".png"),
                                           Path.ChangeExtension(outPath, ".loglog.png")], request.MeasuredPath, request.ReferencePath);
             var src = SolutionOptions.Open(parse.GetValue(input)!, parse.GetValue(set), parse.GetValue(temperature), parse.GetValue(mesh), false, o);
             request = request with { Settings = CommonOptions.Settings(src.Model, parse.GetValue(temperature), parse.GetValue(mesh)) };
@@ -61,7 +61,7 @@ public static class HeatCommand
                 return ExitCodes.NotConverged;
             }
             foreach (var line in HeatReport.Lines(result)) o.WriteLine(line);
-            var written = HeatTableWriter.WriteStudy(outPath, result, src.OriginText);
+            var written = HeatTableWriter.WriteStudy(outPath, result, ResultProvenance.Of(src));
             o.WriteLine($"wrote {string.Join(", ", written)}");
             return ExitCodes.Success;
         });

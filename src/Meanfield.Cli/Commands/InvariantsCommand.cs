@@ -58,7 +58,7 @@ public static class InvariantsCommand
                 var table = Path.ChangeExtension(flowPath, ".csv");
                 WannierFlowPlot.Save(z.Flows, flowPath, $"{src.Model.Name}: Wannier-centre flow, {occ} bands");
                 WannierFlowPlot.WriteTable(z.Flows, table, new Dictionary<string, string>
-                    { ["model"] = src.Model.Name, ["source"] = src.OriginText, ["model_sha256"] = Provenance.Hash(src.Model.SourceText), ["tool_version"] = Provenance.ToolVersion });
+                    { ["model"] = src.Model.Name, ["source"] = ResultProvenance.SourceFile(src), ["source_kind"] = src.OriginText, ["model_sha256"] = Provenance.Hash(src.Model.SourceText), ["tool_version"] = Provenance.ToolVersion });
                 o.WriteLine($"wrote {flowPath} and {table}");
             }
             if (r.Status == InvariantStatus.Determined) return ExitCodes.Success;

@@ -31,7 +31,7 @@ public static class NodesCommand
             var digest = SpectrumSummary.Compute(src, new SpectrumRequest { SearchMesh = sm });
             var prov = new Dictionary<string, string>
             {
-                ["model"] = src.Model.Name, ["source"] = src.OriginText, ["model_sha256"] = Provenance.Hash(src.Model.SourceText),
+                ["model"] = src.Model.Name, ["source"] = ResultProvenance.SourceFile(src), ["source_kind"] = src.OriginText, ["model_sha256"] = Provenance.Hash(src.Model.SourceText),
                 ["tool_version"] = Provenance.ToolVersion,
             };
             AtomicFile.WriteText(outPath, NodeReportJson.Build(src, digest, prov) + "\n");

@@ -72,6 +72,7 @@ public static class ScanCommand
         var spec = ModelFile.Load(first.ModelPath);
         var scan = ScanFileReader.Load(scanPath, spec.Parameters.Select(p => p.Name).ToList());
         var grid = scan.ToGrid();
+        shard.CheckHasPoints(grid.Count);
         var solver = SaddlePointPointSolver.For(scan);
         var target = shard.OutputPath(outPath);
         Output.OutputGuard.Check(target, [scanPath, first.ModelPath]);

@@ -23,6 +23,7 @@ public static class SolveCommand
             var path = parse.GetValue(output)!;
             OutputGuard.Check(path, [parse.GetValue(model)]);
             var bound = CommonOptions.LoadModel(parse.GetValue(model)!, CommonOptions.ParseSets(parse.GetValue(set)));
+            if (bound.Shells.Count == 0) throw new UserInputException(SolutionInput.NothingToSolve(bound, SolutionInput.Recognise(bound.SourcePath) == InputKind.ExportedModel ? Output.OneBodyModelFiles.Load(bound.SourcePath).Header : null));
             var settings = CommonOptions.Settings(bound, parse.GetValue(temperature), parse.GetValue(mesh));
             var sp = new SaddlePointSolver(bound, settings).Solve();
             if (!sp.Converged)

@@ -6,7 +6,7 @@ namespace Meanfield.Bloch;
 
 /// <summary>
 /// Assembles the Bloch Hamiltonian H(k) of a bound model into caller-provided buffers, with no allocation per k-point.
-/// Basis index = orbital * F + flavour. Bloch convention II: a bond t c^dag_{i,0} c_{j,R} contributes
+/// Basis index = orbital * F + flavour. The Bloch phase includes the site positions: a bond t c^dag_{i,0} c_{j,R} contributes
 /// t e^{i k.(R + tau_j - tau_i)} to H_ij(k), so Berry curvature sees the true site positions; eigenvalues and
 /// chiralities do not depend on this choice, and H(k + G) is unitarily equivalent to H(k).
 /// The Hamiltonian is split into a fixed part (conduction bonds, every on-site term) and a scaled part (bonds with a

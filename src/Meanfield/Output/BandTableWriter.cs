@@ -1,105 +1,68 @@
-using System.Globalization;
-using System.Text;
 using Meanfield.Analysis.Bands;
 using Meanfield.Units;
-using Parquet;
-using Parquet.Schema;
 
 namespace Meanfield.Output;
 
 /// <summary>
-/// Writes a <see cref="BandStructure"/> as a long table, one row per (k-point, band), in CSV or Parquet chosen by the
-/// file extension. Columns: k_index, path_length (1/angstrom), kx, ky, kz (1/angstrom), label (path vertex label, empty
-/// elsewhere; "G" is the zone centre), band (0 = lowest), energy (model energy unit), f_weight (correlated-orbital
-/// weight, 0..1). The energy unit is named in the CSV's leading '#' comment line and in the Parquet key-value metadata
-/// under "energy_unit". Output is written to a temporary file and renamed into place.
+/// Writes a <see cref="BandStructure"/> as a long table, one row per (k-point, band), CSV or Parquet by extension,
+/// through <see cref="ColumnTable"/> (units in the CSV's '#' lines, in the Parquet file metadata and in each column's
+/// own metadata). Columns: k_index, path_length_per_angstrom, kx/ky/kz_per_angstrom, label (path vertex label, empty
+/// elsewhere; "G" is the zone centre), band (0 = lowest), energy_E and energy_minus_mu_E (E the model's energy unit;
+/// the latter when mu is given), f_weight (correlated-orbital weight, 0..1).
 /// </summary>
 public static class BandTableWriter
 {
-    public static readonly string[] Columns = ["k_index", "path_length", "kx", "ky", "kz", "label", "band", "energy", "f_weight"];
-
-    /// <summary>Parquet key-value metadata key naming the energy unit ("meV", "eV" or "K").</summary>
-    public const string EnergyUnitKey = "energy_unit";
-    /// <summary>Parquet key-value metadata key naming the unit of path_length, kx, ky, kz.</summary>
-    public const string LengthUnitKey = "k_unit";
-
-    /// <summary>Writes <paramref name="bands"/> to <paramref name="path"/> (.csv or .parquet); extra metadata goes into the header/key-value store.</summary>
-    /// <exception cref="ArgumentException">The extension is neither .csv nor .parquet.</exception>
-    public static void Write(BandStructure bands, string path, IReadOnlyDictionary<string, string>? metadata = null) =>
-        WriteAsync(bands, path, metadata).GetAwaiter().GetResult();
-
-    public static Task WriteAsync(BandStructure bands, string path, IReadOnlyDictionary<string, string>? metadata = null)
+    /// <summary>The columns for energy unit <paramref name="unit"/>, with or without the energy_minus_mu column.</summary>
+    public static IReadOnlyList<TableColumn> Columns(EnergyUnit unit, bool withMu = true)
     {
-        var ext = Path.GetExtension(path).ToLowerInvariant();
-        return ext switch
+        string u = unit.Symbol();
+        var c = new List<TableColumn>
         {
-            ".csv" => AtomicFile.WriteAsync(path, s => WriteCsv(bands, s, metadata)),
-            ".parquet" => AtomicFile.WriteAsync(path, s => WriteParquet(bands, s, metadata)),
-            _ => throw new ArgumentException($"Band table '{path}': unknown extension '{ext}'; use .csv or .parquet."),
+            new("k_index", "1", "index of the k-point along the path"),
+            new("path_length_per_angstrom", "1/angstrom", "distance along the path"),
+            new("kx_per_angstrom", "1/angstrom", "Cartesian k_x"), new("ky_per_angstrom", "1/angstrom", "Cartesian k_y"), new("kz_per_angstrom", "1/angstrom", "Cartesian k_z"),
+            new("label", "text", "zone point label at path vertices (G = zone centre), empty elsewhere"),
+            new("band", "1", "band index, 0 = lowest"),
+            new($"energy_{u}", u, "band energy"),
         };
+        if (withMu) c.Add(new($"energy_minus_mu_{u}", u, "band energy relative to the chemical potential"));
+        c.Add(new("f_weight", "1", "correlated-orbital weight of the state, 0..1"));
+        return c;
     }
 
-    private static async Task WriteCsv(BandStructure b, Stream stream, IReadOnlyDictionary<string, string>? metadata)
+    /// <summary>
+    /// Writes <paramref name="bands"/> to <paramref name="path"/> (.csv or .parquet); <paramref name="metadata"/> goes
+    /// into the header and key-value store; <paramref name="mu"/>, when given, adds energy_minus_mu.
+    /// </summary>
+    /// <exception cref="ArgumentException">The extension is neither .csv nor .parquet.</exception>
+    public static void Write(BandStructure bands, string path, IEnumerable<KeyValuePair<string, string>>? metadata = null, double? mu = null)
     {
-        var inv = CultureInfo.InvariantCulture;
-        await using var w = new StreamWriter(stream, new UTF8Encoding(false), 1 << 16);
-        w.Write($"# band structure along {string.Join(" ", b.Path.Ticks.Select(t => t.Label))}; energy in {b.Unit.Symbol()}; path_length, kx, ky, kz in 1/angstrom; f_weight = correlated-orbital weight");
-        if (metadata != null) foreach (var (key, value) in metadata) w.Write($"; {key}={value.Replace('\n', ' ')}");
-        w.WriteLine();
-        w.WriteLine(string.Join(",", Columns));
-        for (int k = 0; k < b.KCount; k++)
-        {
-            var q = b.Path.K[k];
-            string prefix = string.Create(inv, $"{k},{b.Path.Length[k]:R},{q.X:R},{q.Y:R},{q.Z:R},{Csv(b.Path.Labels[k])}");
-            for (int n = 0; n < b.BandCount; n++)
-                w.WriteLine(string.Create(inv, $"{prefix},{n},{b.Energy(k, n):R},{b.CorrelatedWeight(k, n):R}"));
-        }
-    }
-
-    // RFC 4180 quoting: labels given as reduced coordinates contain commas.
-    private static string Csv(string field) =>
-        field.IndexOfAny([',', '"', '\n', '\r']) < 0 ? field : "\"" + field.Replace("\"", "\"\"") + "\"";
-
-    /// <summary>The Parquet schema of the table.</summary>
-    public static ParquetSchema Schema() => new(
-        new DataField<int>("k_index"), new DataField<double>("path_length"),
-        new DataField<double>("kx"), new DataField<double>("ky"), new DataField<double>("kz"),
-        new DataField<string>("label"), new DataField<int>("band"),
-        new DataField<double>("energy"), new DataField<double>("f_weight"));
-
-    private static async Task WriteParquet(BandStructure b, Stream stream, IReadOnlyDictionary<string, string>? metadata)
-    {
+        var b = bands;
         int nk = b.KCount, nb = b.BandCount, rows = nk * nb;
         var kIndex = new int[rows]; var band = new int[rows];
         var len = new double[rows]; var kx = new double[rows]; var ky = new double[rows]; var kz = new double[rows];
-        var label = new string[rows]; var energy = new double[rows]; var fw = new double[rows];
+        var label = new string[rows]; var energy = new double[rows]; var rel = new double[rows]; var fw = new double[rows];
         for (int k = 0, r = 0; k < nk; k++)
             for (int n = 0; n < nb; n++, r++)
             {
                 var q = b.Path.K[k];
                 kIndex[r] = k; len[r] = b.Path.Length[k]; kx[r] = q.X; ky[r] = q.Y; kz[r] = q.Z;
-                label[r] = b.Path.Labels[k]; band[r] = n; energy[r] = b.Energy(k, n); fw[r] = b.CorrelatedWeight(k, n);
+                label[r] = b.Path.Labels[k]; band[r] = n; energy[r] = b.Energy(k, n); rel[r] = energy[r] - (mu ?? 0); fw[r] = b.CorrelatedWeight(k, n);
             }
-        var schema = Schema();
-        var f = schema.DataFields;
-        var meta = new Dictionary<string, string>
+        var cols = Columns(b.Unit, mu is not null);
+        var data = new List<TableData>
         {
-            [EnergyUnitKey] = b.Unit.Symbol(),
-            [LengthUnitKey] = "1/angstrom",
-            ["band_path"] = string.Join(" ", b.Path.Ticks.Select(t => t.Label)),
+            new(cols[0], kIndex), new(cols[1], len), new(cols[2], kx), new(cols[3], ky), new(cols[4], kz),
+            new(cols[5], label), new(cols[6], band), new(cols[7], energy),
         };
-        if (metadata != null) foreach (var (key, value) in metadata) meta[key] = value;
-        await using var writer = await ParquetWriter.CreateAsync(schema, stream);
-        writer.CustomMetadata = meta;
-        using var rg = writer.CreateRowGroup();
-        await rg.WriteAsync<int>(f[0], kIndex);
-        await rg.WriteAsync<double>(f[1], len);
-        await rg.WriteAsync<double>(f[2], kx);
-        await rg.WriteAsync<double>(f[3], ky);
-        await rg.WriteAsync<double>(f[4], kz);
-        await rg.WriteAsync(f[5], label);
-        await rg.WriteAsync<int>(f[6], band);
-        await rg.WriteAsync<double>(f[7], energy);
-        await rg.WriteAsync<double>(f[8], fw);
+        if (mu is not null) data.Add(new(cols[8], rel));
+        data.Add(new(cols[^1], fw));
+        var meta = new List<KeyValuePair<string, string>>
+        {
+            new("energy_unit", b.Unit.Symbol()),
+            new("band_path", string.Join(" ", b.Path.Ticks.Select(t => t.Label))),
+        };
+        if (metadata is not null) meta.AddRange(metadata);
+        ColumnTable.Write(path, $"band structure along {string.Join(" ", b.Path.Ticks.Select(t => t.Label))}", meta, data);
     }
 }

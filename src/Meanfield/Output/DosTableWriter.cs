@@ -1,71 +1,44 @@
-using System.Globalization;
-using System.Text;
 using Meanfield.Analysis.Dos;
 using Meanfield.Units;
-using Parquet;
-using Parquet.Schema;
 
 namespace Meanfield.Output;
 
 /// <summary>
-/// Writes a <see cref="DensityOfStates"/> as one row per energy, CSV or Parquet by extension. Columns: energy and
-/// energy_minus_mu (model energy unit), total, conduction, correlated, site_NAME... (states per cell per energy unit,
-/// all flavours), integrated (states per cell below the energy). Units and provenance go into the CSV's leading '#'
-/// line or the Parquet key-value metadata. Written atomically.
+/// Writes a <see cref="DensityOfStates"/> as one row per energy, CSV or Parquet by extension, through
+/// <see cref="ColumnTable"/>. Columns (E the model's energy unit): energy_E, energy_minus_mu_E, total_per_E,
+/// conduction_per_E, correlated_per_E, site_NAME_per_E (states per cell per energy unit, all flavours), integrated
+/// (states per cell below the energy).
 /// </summary>
 public static class DosTableWriter
 {
-    public static IReadOnlyList<string> Columns(DensityOfStates dos) =>
-        ["energy", "energy_minus_mu", "total", "conduction", "correlated", .. dos.SiteNames.Select(s => "site_" + s), "integrated"];
+    /// <summary>The columns of <paramref name="dos"/> in energy unit <paramref name="unit"/>.</summary>
+    public static IReadOnlyList<TableColumn> Columns(DensityOfStates dos, EnergyUnit unit)
+    {
+        string u = unit.Symbol(), d = $"1/{u}";
+        return
+        [
+            new($"energy_{u}", u, "energy"), new($"energy_minus_mu_{u}", u, "energy relative to the chemical potential"),
+            new($"total_per_{u}", d, "total DOS, states per cell per energy unit (all flavours)"),
+            new($"conduction_per_{u}", d, "DOS projected on the conduction orbitals"),
+            new($"correlated_per_{u}", d, "DOS projected on the correlated orbitals"),
+            .. dos.SiteNames.Select(s => new TableColumn($"site_{s}_per_{u}", d, $"DOS projected on the orbitals of site {s}")),
+            new("integrated", "1", "states per cell below the energy"),
+        ];
+    }
 
+    /// <summary>Writes the DOS; <paramref name="metadata"/> goes into the header and key-value store.</summary>
     /// <exception cref="ArgumentException">The extension is neither .csv nor .parquet.</exception>
-    public static void Write(DensityOfStates dos, double mu, EnergyUnit unit, string path, IReadOnlyDictionary<string, string>? metadata = null)
+    public static void Write(DensityOfStates dos, double mu, EnergyUnit unit, string path, IEnumerable<KeyValuePair<string, string>>? metadata = null)
     {
-        var ext = Path.GetExtension(path).ToLowerInvariant();
-        var meta = new Dictionary<string, string>
+        var meta = new List<KeyValuePair<string, string>>
         {
-            ["energy_unit"] = unit.Symbol(),
-            ["dos_unit"] = $"states per cell per {unit.Symbol()}",
-            ["chemical_potential"] = mu.ToString("R", CultureInfo.InvariantCulture),
-            ["method"] = dos.Method,
+            new("energy_unit", unit.Symbol()),
+            new($"chemical_potential_{unit.Symbol()}", mu.ToString("R", System.Globalization.CultureInfo.InvariantCulture)),
+            new("method", dos.Method),
         };
-        if (metadata != null) foreach (var (k, v) in metadata) meta[k] = v;
-        var task = ext switch
-        {
-            ".csv" => AtomicFile.WriteAsync(path, s => WriteCsv(dos, mu, s, meta)),
-            ".parquet" => AtomicFile.WriteAsync(path, s => WriteParquet(dos, mu, s, meta)),
-            _ => throw new ArgumentException($"DOS table '{path}': unknown extension '{ext}'; use .csv or .parquet."),
-        };
-        task.GetAwaiter().GetResult();
-    }
-
-    private static double[][] Data(DensityOfStates d, double mu) =>
-        [d.Energies, [.. d.Energies.Select(e => e - mu)], d.Total, d.Conduction, d.Correlated, .. d.BySite, d.Integrated];
-
-    private static async Task WriteCsv(DensityOfStates dos, double mu, Stream stream, Dictionary<string, string> meta)
-    {
-        var inv = CultureInfo.InvariantCulture;
-        await using var w = new StreamWriter(stream, new UTF8Encoding(false), 1 << 16);
-        w.WriteLine("# density of states; " + string.Join("; ", meta.Select(kv => $"{kv.Key}={kv.Value.Replace('\n', ' ')}")));
-        w.WriteLine(string.Join(",", Columns(dos)));
-        var cols = Data(dos, mu);
-        var sb = new StringBuilder();
-        for (int i = 0; i < dos.Energies.Length; i++)
-        {
-            sb.Clear();
-            for (int c = 0; c < cols.Length; c++) { if (c > 0) sb.Append(','); sb.Append(cols[c][i].ToString("R", inv)); }
-            w.WriteLine(sb);
-        }
-    }
-
-    private static async Task WriteParquet(DensityOfStates dos, double mu, Stream stream, Dictionary<string, string> meta)
-    {
-        var fields = Columns(dos).Select(c => new DataField<double>(c)).ToArray();
-        var schema = new ParquetSchema(fields);
-        var cols = Data(dos, mu);
-        await using var writer = await ParquetWriter.CreateAsync(schema, stream);
-        writer.CustomMetadata = meta;
-        using var rg = writer.CreateRowGroup();
-        for (int c = 0; c < cols.Length; c++) await rg.WriteAsync<double>(fields[c], cols[c]);
+        if (metadata is not null) meta.AddRange(metadata);
+        var cols = Columns(dos, unit);
+        double[][] values = [dos.Energies, [.. dos.Energies.Select(e => e - mu)], dos.Total, dos.Conduction, dos.Correlated, .. dos.BySite, dos.Integrated];
+        ColumnTable.Write(path, "density of states", meta, [.. cols.Select((c, i) => new TableData(c, values[i]))]);
     }
 }

@@ -129,7 +129,7 @@ public static class NodeReportJson
         w.WriteStartArray("principal_velocities");
         foreach (var s in n.VelocitySingular) NumValue(w, s);
         w.WriteEndArray();
-        Num(w, "abs_det_velocity", n.DetVelocity);
+        Num(w, "velocity_determinant_magnitude", n.DetVelocity);
         Vector(w, "tilt", n.Tilt);
         Num(w, "tilt_ratio", n.TiltRatio);
         w.WriteString("type", n.Type == NodeType.TypeI ? "I" : "II");

@@ -32,24 +32,28 @@ public static class NodeReportText
             double offset = orbit.Average(n => n.EnergyOffset);
             string where = first.Pinning switch { NodePinning.Pinned => "pinned at mu", NodePinning.Above => "above mu", _ => "below mu" };
             sb.AppendLine();
-            Line($"orbit {orbit.Key + 1}: {orbit.Count()} {(first.IsDirac ? "Dirac" : "Weyl")} node(s) {where}, E - mu = {offset:G4} {u}{(first.Location is { } l ? $", {l}" : "")}");
-            Line($"  cone: principal velocities {string.Join(", ", first.VelocitySingular.Select(v => v.ToString("G4", inv)))} {u} angstrom; tilt ratio {first.TiltRatio:F3} (type {(first.Type == NodeType.TypeI ? "I" : "II")})");
+            string side = offset >= 0 ? "above" : "below";
+            Line($"orbit {orbit.Key + 1}: {Count(orbit.Count(), first.IsDirac ? "Dirac node" : "Weyl node")} related by symmetry, {where} (their energy lies {Math.Abs(offset):G4} {u} {side} mu){(first.Location is { } l ? $", at {l}" : "")}");
+            Line($"  each a {(first.Type == NodeType.TypeI ? "type-I" : "type-II")} cone with principal velocities {string.Join(", ", first.VelocitySingular.Select(v => v.ToString("G4", inv)))} {u} angstrom, tilt ratio {first.TiltRatio:F3} (a cone tips over at 1)");
+            Line($"  where (reduced coordinates along b1, b2, b3) and with which chirality:");
             foreach (var n in orbit)
-                Line($"  at ({n.Reduced.X:F5}, {n.Reduced.Y:F5}, {n.Reduced.Z:F5})  {Chirality(n)}");
+                Line($"    ({n.Reduced.X:F5}, {n.Reduced.Y:F5}, {n.Reduced.Z:F5})  {Chirality(n)}");
         }
         sb.AppendLine();
         string sum = nodes.ChiralitySum is { } s ? $"chiralities sum to {s}" : nodes.Dimension == 3 ? "chirality sum unknown (some undetermined)" : "no chirality in two dimensions";
-        Line($"{nodes.Nodes.Count} node(s), {nodes.Nodes.Count(n => n.Pinning == NodePinning.Pinned)} pinned at mu; {sum}");
+        Line($"in all {Count(nodes.Nodes.Count, "node")}, {nodes.Nodes.Count(n => n.Pinning == NodePinning.Pinned)} pinned at mu; {sum}");
         Line($"phase: {digest.Phase!.Name} ({digest.Phase.Reason})");
         return sb.ToString();
     }
 
+    private static string Count(int n, string noun) => n == 1 ? $"1 {noun}" : $"{n} {noun}s";
+
     private static string Chirality(WeylNode n) => n.Chirality switch
     {
-        { } c when c > 0 => FormattableString.Invariant($"chirality +{c} (flux {n.FluxOver2Pi:F4})"),
-        { } c when c < 0 => FormattableString.Invariant($"chirality {c} (flux {n.FluxOver2Pi:F4})"),
-        { } => FormattableString.Invariant($"no net charge (flux {n.FluxOver2Pi:F4})"),
-        null when n.FluxOver2Pi is { } f => FormattableString.Invariant($"chirality undetermined (flux {f:F3} is not an integer)"),
+        { } c when c > 0 => FormattableString.Invariant($"chirality +{c} (Berry flux {n.FluxOver2Pi:F4} x 2 pi)"),
+        { } c when c < 0 => FormattableString.Invariant($"chirality {c} (Berry flux {n.FluxOver2Pi:F4} x 2 pi)"),
+        { } => FormattableString.Invariant($"no net charge (Berry flux {n.FluxOver2Pi:F4} x 2 pi)"),
+        null when n.FluxOver2Pi is { } f => FormattableString.Invariant($"chirality undetermined (Berry flux {f:F3} x 2 pi is not a whole multiple)"),
         null => n.SphereRadius == 0 ? "" : "chirality undetermined",
     };
 }

@@ -9,7 +9,8 @@ public abstract class ScanColumn(DataField field, string unit)
 {
     public DataField Field { get; } = field;
     public string Unit { get; } = unit;
-    internal abstract Task WriteAsync(ParquetRowGroupWriter writer, IReadOnlyList<ScanRow> rows, CancellationToken ct);
+    /// <summary>Writes the column of <paramref name="rows"/>; <paramref name="own"/> is its own metadata (unit), kept by numeric columns.</summary>
+    internal abstract Task WriteAsync(ParquetRowGroupWriter writer, IReadOnlyList<ScanRow> rows, Dictionary<string, string>? own, CancellationToken ct);
     internal abstract Task ReadAsync(ParquetRowGroupReader reader, RowDraft[] rows, CancellationToken ct);
     /// <summary>The column's value in a row (boxed; null where not computed).</summary>
     public abstract object? Value(ScanRow row);
@@ -20,8 +21,8 @@ internal sealed class ValueColumn<T>(string name, string unit, Func<ScanRow, T> 
 {
     public override object? Value(ScanRow row) => get(row);
 
-    internal override Task WriteAsync(ParquetRowGroupWriter writer, IReadOnlyList<ScanRow> rows, CancellationToken ct) =>
-        writer.WriteAsync<T>(Field, rows.Select(get).ToArray(), null, null, ct);
+    internal override Task WriteAsync(ParquetRowGroupWriter writer, IReadOnlyList<ScanRow> rows, Dictionary<string, string>? own, CancellationToken ct) =>
+        writer.WriteAsync<T>(Field, rows.Select(get).ToArray(), null, own, ct);
 
     internal override async Task ReadAsync(ParquetRowGroupReader reader, RowDraft[] rows, CancellationToken ct)
     {
@@ -36,8 +37,8 @@ internal sealed class NullableColumn<T>(string name, string unit, Func<ScanRow, 
 {
     public override object? Value(ScanRow row) => get(row);
 
-    internal override Task WriteAsync(ParquetRowGroupWriter writer, IReadOnlyList<ScanRow> rows, CancellationToken ct) =>
-        writer.WriteAsync<T>(Field, rows.Select(get).ToArray(), null, null, ct);
+    internal override Task WriteAsync(ParquetRowGroupWriter writer, IReadOnlyList<ScanRow> rows, Dictionary<string, string>? own, CancellationToken ct) =>
+        writer.WriteAsync<T>(Field, rows.Select(get).ToArray(), null, own, ct);
 
     internal override async Task ReadAsync(ParquetRowGroupReader reader, RowDraft[] rows, CancellationToken ct)
     {
@@ -52,8 +53,8 @@ internal sealed class TextColumn(string name, string unit, Func<ScanRow, string?
 {
     public override object? Value(ScanRow row) => get(row);
 
-    internal override Task WriteAsync(ParquetRowGroupWriter writer, IReadOnlyList<ScanRow> rows, CancellationToken ct) =>
-        writer.WriteAsync(Field, rows.Select(get).ToArray()!, null);
+    internal override Task WriteAsync(ParquetRowGroupWriter writer, IReadOnlyList<ScanRow> rows, Dictionary<string, string>? own, CancellationToken ct) =>
+        writer.WriteAsync(Field, rows.Select(get).ToArray()!, null); // Parquet.Net 6: column metadata for value types only
 
     internal override async Task ReadAsync(ParquetRowGroupReader reader, RowDraft[] rows, CancellationToken ct)
     {
@@ -68,7 +69,7 @@ internal sealed class SolverStateColumn() : ScanColumn(new DataField<byte[]>("so
 {
     public override object? Value(ScanRow row) => row.Result.SolverState;
 
-    internal override Task WriteAsync(ParquetRowGroupWriter writer, IReadOnlyList<ScanRow> rows, CancellationToken ct) =>
+    internal override Task WriteAsync(ParquetRowGroupWriter writer, IReadOnlyList<ScanRow> rows, Dictionary<string, string>? own, CancellationToken ct) =>
         writer.WriteAsync(Field, rows.Select(r => r.Result.SolverState is { } s
             ? System.Runtime.InteropServices.MemoryMarshal.AsBytes(s.AsSpan()).ToArray() : null).ToArray()!, null);
 

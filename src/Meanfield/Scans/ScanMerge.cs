@@ -78,6 +78,9 @@ public static class ScanMerge
                 [ScanMetadata.Shard] = ShardSpec.Whole.ToString(),
                 [ScanMetadata.Schema] = schema.ToJson(),
                 [ScanMetadata.CreatedUtc] = DateTime.UtcNow.ToString("yyyy-MM-ddTHH:mm:ssZ", System.Globalization.CultureInfo.InvariantCulture),
+                [ScanMetadata.Merged] = $"merged by `scan merge` from {tables.Count} shard file(s) of {(declared.Count > 0 ? $"a {declared[0].Count}-shard run" : "a sharded run")}"
+                                        + $" (shards {string.Join(", ", shardTexts)}){(missing.Count > 0 ? $"; incomplete: {missing.Count} of {grid.Count} points missing" : "")}",
+                [ScanMetadata.MergedFiles] = string.Join("\n", tables.Select(t => Path.GetFullPath(t.Path))),
             };
             var sorted = rows.OrderBy(r => r.PointId).Select(r => r with { Result = r.Result with { SolverState = null } }).ToArray();
             await ScanParquet.WriteAsync(Path.GetFullPath(output), schema, sorted, meta, ct);

@@ -17,6 +17,10 @@ public static class ScanMetadata
     public const string Schema = "schema";
     public const string Shard = "shard";
     public const string EnergyUnit = "energy_unit";
+    /// <summary>Present in merged files only: that they were merged, from how many shards of which run.</summary>
+    public const string Merged = "merged";
+    /// <summary>Present in merged files only: the shard files merged (absolute paths, one per line).</summary>
+    public const string MergedFiles = "merged_files";
 
     public static string Version => Output.Provenance.ToolVersion;
 

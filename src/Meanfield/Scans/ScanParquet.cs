@@ -22,13 +22,19 @@ public static class ScanParquet
             {
                 await using (var writer = await ParquetWriter.CreateAsync(schema.Parquet, stream, cancellationToken: ct))
                 {
-                    writer.CustomMetadata = new Dictionary<string, string>(metadata);
+                    // Units per column: in the file's metadata (unit.NAME, besides the "units" object) and in each column's own.
+                    var energyUnit = metadata.GetValueOrDefault(ScanMetadata.EnergyUnit) ?? "model energy unit";
+                    var units = schema.Columns.ToDictionary(c => c.Field.Name, c => c.Unit.Length == 0 ? (c is TextColumn ? "text" : c is SolverStateColumn ? "bytes" : "1") : c.Unit.Replace("{E}", energyUnit, StringComparison.Ordinal));
+                    var fileMeta = new Dictionary<string, string>(metadata);
+                    foreach (var (name, unit) in units) fileMeta[Output.TableColumn.FileUnitPrefix + name] = unit;
+                    writer.CustomMetadata = fileMeta;
                     for (int start = 0; start < rows.Count; start += RowGroupSize)
                     {
                         var slice = rows.Skip(start).Take(RowGroupSize).ToArray();
                         foreach (var r in slice) schema.Check(r);
                         using var group = writer.CreateRowGroup();
-                        foreach (var column in schema.Columns) await column.WriteAsync(group, slice, ct);
+                        foreach (var column in schema.Columns)
+                            await column.WriteAsync(group, slice, new Dictionary<string, string> { [Output.TableColumn.UnitKey] = units[column.Field.Name] }, ct);
                     }
                 }
                 stream.Flush(flushToDisk: true);

@@ -8,11 +8,16 @@ namespace Meanfield.Scans;
 /// </summary>
 public static class ScanRunner
 {
+    /// <summary>Runs (or resumes) one shard of a scan into <paramref name="output"/>, holding its lock file meanwhile.</summary>
+    /// <exception cref="ScanError">An empty shard, an output locked by another process, leftover chunks without --resume, a mismatched earlier result.</exception>
     public static async Task<ScanSummary> RunAsync(ScanGrid grid, PointSolver solver, ScanOutput output,
                                                    ScanRunOptions options, IProgress<ScanProgress>? progress,
                                                    CancellationToken ct)
     {
         var clock = Stopwatch.StartNew();
+        options.Shard.CheckHasPoints(grid.Count);
+        // One writer per output: a second process on the same file is refused, naming the holder.
+        using var held = OutputLock.Acquire(output.Path, options.Notice);
         var ids = grid.Shard(options.Shard);
         output.RemoveStaleTemporaries();
         if (output.HasChunks && await output.IsFinishedAsync(ids, options.Shard, ct))

@@ -27,8 +27,9 @@ public readonly record struct ShardSpec(int Index, int Count)
     /// <summary>
     /// Maps a Slurm job-array task to a shard: index = (id - min) / step, count = (max - min) / step + 1, which must
     /// equal SLURM_ARRAY_TASK_COUNT. Returns null outside a job array. A sparse index list (for example --array=1,2,7)
-    /// cannot be mapped and is refused.
+    /// cannot be mapped and is refused, and so is an array of one task (which shard it is cannot be told).
     /// </summary>
+    /// <exception cref="ScanError">A sparse list, a one-task array, or a missing or malformed variable.</exception>
     public static ShardSpec? FromEnvironment(IDictionary env)
     {
         string? Get(string key) => env.Contains(key) ? env[key]?.ToString() : null;
@@ -46,12 +47,31 @@ public readonly record struct ShardSpec(int Index, int Count)
                 $"cannot map Slurm array task {id} to a shard: ids {min}..{max} step {step} do not form a regular range " +
                 $"of SLURM_ARRAY_TASK_COUNT={count} tasks (a sparse --array list?). Pass the shard explicitly with " +
                 "--shard I/N (0 <= I < N).");
+        // One task alone (often a single resubmitted task of a larger array, e.g. --array=7) would run the whole grid
+        // into the unsharded file, beside or over the other tasks' shards: ask which shard it is instead.
+        if (count == 1)
+            throw new ScanError(
+                $"inside a Slurm job array of one task (SLURM_ARRAY_TASK_ID={id}, SLURM_ARRAY_TASK_COUNT=1, perhaps one resubmitted task): " +
+                "meanfield cannot tell which shard it is. Pass --shard I/N (0 <= I < N, N the size of the original array), " +
+                "or --shard 0/1 to compute the whole grid into the unsharded file.");
         return new ShardSpec((id - min) / step, count);
 
         static int Int(string key, string? text) =>
             int.TryParse(text?.Trim(), NumberStyles.AllowLeadingSign, CultureInfo.InvariantCulture, out int v)
                 ? v
                 : throw new ScanError($"{key}='{text}' is missing or not an integer; pass --shard I/N explicitly");
+    }
+
+    /// <summary>
+    /// Refuses more shards than grid points: some shards would have no point (with I &gt;= points, shard I is beyond
+    /// them), and a job array that large wastes its tasks.
+    /// </summary>
+    /// <exception cref="ScanError">More shards than points.</exception>
+    public void CheckHasPoints(int gridPoints)
+    {
+        if (Count > 1 && Count > gridPoints)
+            throw new ScanError(FormattableString.Invariant(
+                $"shard {this}: the grid has {gridPoints} point{(gridPoints == 1 ? "" : "s")}, so {Count} shards leave some without a point{(Index >= gridPoints ? $" (shard {Index} is beyond the points)" : "")}; use at most {gridPoints} shards (nothing written)"));
     }
 
     /// <summary>File name of this shard's output: "name.shard-003-of-008.parquet" for "name.parquet".</summary>

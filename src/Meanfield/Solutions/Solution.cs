@@ -17,6 +17,8 @@ public enum SolutionOrigin
     File,
     /// <summary>The bare model: f levels and hybridization unrenormalized, no saddle point.</summary>
     BareModel,
+    /// <summary>An exported one-body model (`export`): a plain model without correlated shell, mu as exported.</summary>
+    ExportedModel,
 }
 
 /// <summary>
@@ -49,6 +51,8 @@ public sealed class Solution
     public string? SourcePath { get; }
     /// <summary>The node search that placed mu (T = 0 between bands), reused by the spectrum digest; null otherwise.</summary>
     internal NodeSearchResult? PlacementNodes { get; }
+    /// <summary>What an exported model's file says about itself, for <see cref="SolutionOrigin.ExportedModel"/>; otherwise null.</summary>
+    public OneBodyHeader? ExportHeader { get; private init; }
 
     private Solution(BoundModel model, IBlochSource hamiltonian, MeanFieldAmplitudes? amplitudes, SaddlePoint? saddlePoint,
                      KMesh? mesh, FermiLevelPlacement.Placement placement, double temperature, bool decoupled,
@@ -74,6 +78,7 @@ public sealed class Solution
     {
         SolutionOrigin.File => $"solution file {SourcePath}",
         SolutionOrigin.BareModel => "bare model",
+        SolutionOrigin.ExportedModel => $"exported model {SourcePath}",
         _ => "solved",
     };
 
@@ -132,6 +137,21 @@ public sealed class Solution
         var window = occ >= 1 && occ < ham.Size ? FermiLevelPlacement.Window(spectrum, occ) : null;
         var placement = Place(ham, model, mesh, mu, 0, ChemicalPotentialRule.GroundStateInBand, decoupled: false, window);
         return new Solution(model, ham, null, null, mesh, placement, 0, false, SolutionOrigin.BareModel, null);
+    }
+
+    /// <summary>
+    /// An exported one-body model as a handle: its Bloch Hamiltonian, the exported mu and temperature (nothing is
+    /// re-solved or re-placed) and the exported sampling mesh, or <paramref name="meshDivisions"/> when given.
+    /// </summary>
+    /// <exception cref="ArgumentException">A mesh below 2 divisions.</exception>
+    public static Solution FromExport(ExportedModel export, int? meshDivisions = null)
+    {
+        var model = export.Model;
+        int divisions = meshDivisions ?? export.Header.Mesh ?? 16;
+        if (divisions < 2) throw new ArgumentException($"mesh must be at least 2 divisions, got {divisions}");
+        var mesh = new KMesh(model.Lattice, divisions, meshDivisions is null ? export.Header.Shifted : false);
+        return new Solution(model, new BlochHamiltonian(model), null, null, mesh, new(export.Header.Mu, ChemicalPotentialRule.FromFile, null),
+                            export.Header.Temperature, false, SolutionOrigin.ExportedModel, model.SourcePath) { ExportHeader = export.Header };
     }
 
     private static FermiLevelPlacement.Placement Place(IBlochSource ham, BoundModel model, KMesh? mesh, double mu, double temperature,

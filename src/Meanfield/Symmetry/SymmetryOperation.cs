@@ -4,7 +4,7 @@ namespace Meanfield.Symmetry;
 
 /// <summary>
 /// A symmetry of a Bloch Hamiltonian: a point operation R of the lattice, optionally combined with time reversal, and the
-/// basis transformation U (site permutation times a flavour rotation) with, in Bloch convention II,
+/// basis transformation U (site permutation times a flavour rotation) with (the Bloch phase including the site positions)
 ///   unitary:      H(R k)  = U H(k)  U^dag
 ///   antiunitary:  H(-R k) = U H(k)^* U^dag    (time reversal: psi -> U psi^*)
 /// so E_n(S k) = E_n(k) with S = +-R, and every f weight and dE/dr of a shell group the operation keeps is the same at

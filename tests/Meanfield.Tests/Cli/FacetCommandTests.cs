@@ -14,12 +14,13 @@ public sealed class FacetCommandTests
         Assert.Equal(ExitCodes.Success, cli.Run("facet", model, "--plane", "1,1,1", "--top", "B", "--layers", "6", "--points", "30", "--out", csv));
         Assert.True(File.Exists(cli.PathOf("slab.png")));
         var lines = File.ReadAllLines(csv);
-        Assert.Contains("energy_unit=eV", lines[0]);
-        Assert.Contains("hamiltonian=bare model", lines[0]);
-        Assert.Contains("surface_lattice=hexagonal", lines[0]);
-        Assert.Equal("k_index,path_length,kx,ky,kz,label,band,energy,energy_minus_mu,top_weight,bottom_weight", lines[1]);
+        Assert.Contains("# energy_unit = eV", lines);
+        Assert.Contains(lines, l => l.StartsWith("# hamiltonian = bare model"));
+        Assert.Contains("# surface_lattice = hexagonal", lines);
+        var body = lines.SkipWhile(l => l.StartsWith('#')).ToArray();
+        Assert.Equal("k_index,path_length_per_angstrom,kx_per_angstrom,ky_per_angstrom,kz_per_angstrom,label,band,energy_eV,energy_minus_mu_eV,top_weight,bottom_weight", body[0]);
         // 30 k-points x (6 layers x 4 bands) rows.
-        Assert.Equal(30 * 24, lines.Length - 2);
+        Assert.Equal(30 * 24, body.Length - 1);
         Assert.Contains("hexagonal surface zone", cli.Out);
     }
 
@@ -36,7 +37,7 @@ public sealed class FacetCommandTests
         Assert.Equal(36, reader.Metadata!.NumRows);
         Assert.Equal("meV", reader.CustomMetadata["energy_unit"]);
         Assert.Contains("bulk saddle point", reader.CustomMetadata["hamiltonian"]);
-        Assert.Contains("surface=1/meV", reader.CustomMetadata["column_units"]);
+        Assert.Equal("1/meV", reader.CustomMetadata["unit.surface_per_meV"]);
         Assert.Equal("0", reader.CustomMetadata["not_converged_points"]);
     }
 

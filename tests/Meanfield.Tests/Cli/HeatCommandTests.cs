@@ -55,7 +55,7 @@ public class HeatCommandTests : IDisposable
         var lines = File.ReadAllLines(outFile);
         Assert.StartsWith("#", lines[0]);
         var header = lines.First(l => !l.StartsWith('#'));
-        Assert.Equal("T_K,C_J_per_mol_K,C_over_T_mJ_per_mol_K2,S_J_per_mol_K,node_C_J_per_mol_K,mu_minus_mu0", header);
+        Assert.Equal("T_K,C_J_per_mol_K,C_over_T_mJ_per_mol_K2,S_J_per_mol_K,node_C_J_per_mol_K,mu_minus_mu0_meV", header);
         Assert.Equal(12, lines.Count(l => !l.StartsWith('#')) - 1);
         foreach (var f in new[] { "heat.residuals.csv", "heat.png", "heat.loglog.png" })
             Assert.True(File.Exists(Path.Combine(_dir, f)), f);

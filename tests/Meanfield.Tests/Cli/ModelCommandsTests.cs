@@ -53,22 +53,6 @@ public class ModelCommandsTests
     }
 
     [Fact]
-    public void ExportedHoppingTableLoads()
-    {
-        var dir = CliRun.TempDir();
-        var solution = Path.Combine(dir, "s.json");
-        Assert.Equal(ExitCodes.Success, CliRun.Run("solve", CliRun.ModelPath("kondo-insulator-sc.toml"), "--mesh", "6", "--out", solution).Code);
-        var table = Path.Combine(dir, "hr.dat");
-        var (code, _, err) = CliRun.Run("export", solution, "--format", "hopping-table", "--out", table);
-        Assert.True(code == ExitCodes.Success, err);
-        var loaded = HoppingTable.Load(table);
-        Assert.Equal(4, loaded.BasisSize); // one c and one f orbital, two spins
-        var json = Path.Combine(dir, "model.json");
-        Assert.Equal(ExitCodes.Success, CliRun.Run("export", solution, "--format", "json", "--out", json).Code);
-        Assert.Contains("\"chemical_potential\"", File.ReadAllText(json));
-    }
-
-    [Fact]
     public void KondoScaleReportsKelvin()
     {
         var (code, stdout, err) = CliRun.Run("kondo-scale", CliRun.ModelPath("kondo-insulator-sc.toml"), "--mesh", "8");

@@ -86,4 +86,21 @@ public sealed class ScanCommandTests : IDisposable
         Assert.Contains("--shard I/N", r.Err);
         Assert.Empty(Directory.GetFiles(_dir, "x*"));
     }
+    [Fact]
+    public void One_task_Slurm_array_exits_2_asks_for_the_shard_and_writes_nothing()
+    {
+        // A single resubmitted task (`sbatch --array=5`) sets ID = MIN = MAX = 5 and COUNT 1 (Slurm job-array documentation).
+        var env = new Hashtable
+        {
+            ["SLURM_ARRAY_TASK_ID"] = "5", ["SLURM_ARRAY_TASK_MIN"] = "5", ["SLURM_ARRAY_TASK_MAX"] = "5", ["SLURM_ARRAY_TASK_COUNT"] = "1",
+        };
+        string output = Path.Combine(_dir, "one.parquet");
+        var r = Run(new ScanCommandContext(() => env), "scan", ScanFile(), "--out", output);
+        Assert.Equal(ExitCodes.BadInput, r.Code);
+        Assert.Contains("--shard I/N", r.Err);
+        Assert.Empty(Directory.GetFiles(_dir, "one*"));
+        // Told the shard, the same task runs.
+        Assert.Equal(0, Run(new ScanCommandContext(() => env), "scan", ScanFile(), "--out", output, "--shard", "0/1").Code);
+        Assert.True(File.Exists(output));
+    }
 }

@@ -11,10 +11,13 @@ public sealed class SpectraCommandTests
 
     private static (string Header, string[] Columns, double[][] Rows) ReadCsv(string path)
     {
+        // Our tables: '#' lines (title, key = value pairs, column units), the column names, the rows.
         var lines = File.ReadAllLines(path);
-        var cols = lines[1].Split(',');
-        var rows = lines.Skip(2).Select(l => l.Split(',').Select(x => double.Parse(x, Inv)).ToArray()).ToArray();
-        return (lines[0], cols, rows);
+        var header = string.Join("\n", lines.TakeWhile(l => l.StartsWith('#')));
+        var body = lines.SkipWhile(l => l.StartsWith('#')).ToArray();
+        var cols = body[0].Split(',');
+        var rows = body.Skip(1).Select(l => l.Split(',').Select(x => double.Parse(x, Inv)).ToArray()).ToArray();
+        return (header, cols, rows);
     }
 
     [Fact]
@@ -26,9 +29,13 @@ public sealed class SpectraCommandTests
         Assert.True(File.Exists(cli.PathOf("dos.png")));
         var (header, cols, rows) = ReadCsv(csv);
         Assert.StartsWith("#", header);
-        Assert.Contains("energy_unit=meV", header);
-        int integrated = Array.IndexOf(cols, "integrated"), total = Array.IndexOf(cols, "total"), rel = Array.IndexOf(cols, "energy_minus_mu");
-        int c = Array.IndexOf(cols, "conduction"), f = Array.IndexOf(cols, "correlated");
+        Assert.Contains("# energy_unit = meV", header);
+        Assert.Contains("# column total_per_meV [1/meV]:", header);
+        Assert.Contains($"# source = {CliHarness.ShippedModel("kondo-insulator-sc.toml")}", header);
+        Assert.Contains("# parameters = ", header);
+        Assert.Contains("# model_text = ", header);
+        int integrated = Array.IndexOf(cols, "integrated"), total = Array.IndexOf(cols, "total_per_meV"), rel = Array.IndexOf(cols, "energy_minus_mu_meV");
+        int c = Array.IndexOf(cols, "conduction_per_meV"), f = Array.IndexOf(cols, "correlated_per_meV");
         // Above the spectrum the integrated DOS counts every state: 2 orbitals x 2 spins = 4 per cell (common practice).
         Assert.Equal(4.0, rows[^1][integrated], 6);
         // Kind projections add up to the total (orthonormal basis, common practice).
@@ -56,7 +63,10 @@ public sealed class SpectraCommandTests
         await using var stream = File.OpenRead(pq);
         await using var reader = await Parquet.ParquetReader.CreateAsync(stream);
         Assert.Equal("meV", reader.CustomMetadata["energy_unit"]);
+        Assert.Equal("1/meV", reader.CustomMetadata["unit.total_per_meV"]);
         Assert.Equal(2801, reader.Metadata!.NumRows);
+        using var rg = reader.OpenRowGroupReader(0);
+        Assert.Equal("1/meV", rg.GetCustomMetadata(reader.Schema.DataFields.Single(x => x.Name == "total_per_meV"))["unit"]);
     }
 
     [Fact]
@@ -173,9 +183,10 @@ public sealed class SpectraCommandTests
             "--grid", "16", "--search-mesh", "8", "--out", csv));
         Assert.True(File.Exists(cli.PathOf("omega.png")));
         var (header, cols, rows) = ReadCsv(csv);
-        Assert.Contains("Chern number 0", header);
+        Assert.Contains("# chern_number = 0", header);
+        Assert.Contains("# column omega_angstrom2 [angstrom^2]:", header);
         Assert.Equal(16 * 16, rows.Length);
-        int flux = Array.IndexOf(cols, "flux");
+        int flux = Array.IndexOf(cols, "flux_rad");
         Assert.Equal(0.0, rows.Sum(r => r[flux]) / (2 * Math.PI), 6);
     }
 

@@ -46,9 +46,11 @@ public sealed class TopologyCommandTests
         Assert.Equal(ExitCodes.Success, cli.Run("hall", model, "--set", "dt=0.4", "--set", "m=0.1", "--window", "-1", "1", "--points", "5",
             "--kmesh", "6", "--out", csv));
         var lines = File.ReadAllLines(csv);
-        Assert.Contains("conductivity_unit=S/cm", lines[0]);
-        Assert.Equal("mu__eV,mu_minus_mu0__eV,temperature__K,sigma_yz__S_per_cm,sigma_zx__S_per_cm,sigma_xy__S_per_cm", lines[1]);
-        foreach (var row in lines.Skip(2))
+        Assert.Contains("# conductivity_unit = S/cm", lines);
+        Assert.Contains("# column sigma_xy_S_per_cm [S/cm]: anomalous Hall conductivity sigma_xy", lines);
+        var header = lines.First(l => !l.StartsWith('#'));
+        Assert.Equal("mu_eV,mu_minus_mu0_eV,temperature_K,sigma_yz_S_per_cm,sigma_zx_S_per_cm,sigma_xy_S_per_cm", header);
+        foreach (var row in lines.SkipWhile(l => l != header).Skip(1))
             foreach (var v in row.Split(',').Skip(3)) Assert.True(Math.Abs(double.Parse(v, System.Globalization.CultureInfo.InvariantCulture)) < 1e-6);
         Assert.True(File.Exists(cli.PathOf("sigma.png")));
     }
@@ -68,7 +70,8 @@ public sealed class TopologyCommandTests
         await using var reader = await Parquet.ParquetReader.CreateAsync(stream);
         Assert.Equal("1", reader.CustomMetadata["dipole_unit"]);
         Assert.Equal(3, reader.Metadata!.NumRows);
-        Assert.Contains("D_xy__1", reader.Schema.DataFields.Select(f => f.Name));
+        Assert.Contains("D_xy", reader.Schema.DataFields.Select(f => f.Name));
+        Assert.Equal("1", reader.CustomMetadata["unit.D_xy"]);
     }
 
     [Fact]

@@ -24,17 +24,19 @@ public sealed class BandTableWriterTests : IDisposable
     {
         var b = Bands();
         var path = Path.Combine(_dir, "bands.csv");
-        BandTableWriter.Write(b, path, new Dictionary<string, string> { ["model"] = "invented test model" });
-        var lines = File.ReadAllLines(path);
-        Assert.StartsWith("#", lines[0]);
-        Assert.Contains("energy in meV", lines[0]);
-        Assert.Contains("model=invented test model", lines[0]);
-        Assert.Equal(string.Join(",", BandTableWriter.Columns), lines[1]);
-        Assert.Equal(b.KCount * b.BandCount, lines.Length - 2);
+        BandTableWriter.Write(b, path, new Dictionary<string, string> { ["model"] = "invented test model" }, mu: 5);
+        var all = File.ReadAllLines(path);
+        Assert.StartsWith("#", all[0]);
+        Assert.Contains("# energy_unit = meV", all);
+        Assert.Contains("# model = invented test model", all);
+        Assert.Contains("# column energy_meV [meV]: band energy", all);
+        var lines = all.SkipWhile(l => l.StartsWith('#')).ToArray();
+        Assert.Equal(string.Join(",", BandTableWriter.Columns(b.Unit).Select(c => c.Name)), lines[0]);
+        Assert.Equal(b.KCount * b.BandCount, lines.Length - 1);
         var inv = CultureInfo.InvariantCulture;
         for (int r = 0; r < b.KCount * b.BandCount; r++)
         {
-            var f = lines[r + 2].Split(',');
+            var f = lines[r + 1].Split(',');
             int k = int.Parse(f[0], inv), n = int.Parse(f[6], inv);
             Assert.Equal(r / b.BandCount, k);
             Assert.Equal(r % b.BandCount, n);
@@ -43,9 +45,10 @@ public sealed class BandTableWriterTests : IDisposable
             Assert.Equal(b.Path.K[k].Z, double.Parse(f[4], inv));
             Assert.Equal(b.Path.Labels[k], f[5]);
             Assert.Equal(b.Energy(k, n), double.Parse(f[7], inv));
-            Assert.Equal(b.CorrelatedWeight(k, n), double.Parse(f[8], inv));
+            Assert.Equal(b.Energy(k, n) - 5, double.Parse(f[8], inv), 12);
+            Assert.Equal(b.CorrelatedWeight(k, n), double.Parse(f[9], inv));
         }
-        Assert.Equal("G", lines[2].Split(',')[5]);
+        Assert.Equal("G", lines[1].Split(',')[5]);
         Assert.Single(Directory.GetFiles(_dir));   // the temporary file was renamed, not left behind
     }
 
@@ -56,10 +59,13 @@ public sealed class BandTableWriterTests : IDisposable
         var path = Path.Combine(_dir, "bands.parquet");
         BandTableWriter.Write(b, path);
         await using var reader = await ParquetReader.CreateAsync(path);
-        Assert.Equal(BandTableWriter.Columns, reader.Schema.DataFields.Select(f => f.Name));
-        Assert.Equal("meV", reader.CustomMetadata[BandTableWriter.EnergyUnitKey]);
-        Assert.Equal("1/angstrom", reader.CustomMetadata[BandTableWriter.LengthUnitKey]);
+        Assert.Equal(BandTableWriter.Columns(b.Unit, withMu: false).Select(c => c.Name), reader.Schema.DataFields.Select(f => f.Name));
+        Assert.Equal("meV", reader.CustomMetadata["energy_unit"]);
+        Assert.Equal("1/angstrom", reader.CustomMetadata["unit.path_length_per_angstrom"]);
+        Assert.Equal("meV", reader.CustomMetadata["unit.energy_meV"]);
         using var rg = reader.OpenRowGroupReader(0);
+        Assert.Equal("meV", rg.GetCustomMetadata(reader.Schema.DataFields[7])["unit"]);
+        Assert.Equal("1/angstrom", rg.GetCustomMetadata(reader.Schema.DataFields[2])["unit"]);
         int rows = b.KCount * b.BandCount;
         Assert.Equal(rows, rg.RowCount);
         var fields = reader.Schema.DataFields;
@@ -102,7 +108,7 @@ public sealed class BandTableWriterTests : IDisposable
             BandPath.Parse("0,0,0 0.5,0.5,0", lattice).Sample(5));
         var path = Path.Combine(_dir, "coords.csv");
         BandTableWriter.Write(b, path);
-        var lines = File.ReadAllLines(path);
-        Assert.EndsWith(",\"0,0,0\",0," + (-150.0).ToString("R", CultureInfo.InvariantCulture) + ",0", lines[2]);
+        var lines = File.ReadAllLines(path).SkipWhile(l => l.StartsWith('#')).ToArray();
+        Assert.EndsWith(",\"0,0,0\",0," + (-150.0).ToString("R", CultureInfo.InvariantCulture) + ",0", lines[1]);
     }
 }

@@ -30,6 +30,26 @@ public sealed class ScanMergeTests : IDisposable
         Assert.Equal(Enumerable.Range(0, 20), table.Rows.Select(r => r.PointId));
         Assert.Equal(new[] { 0, 1, 2 }, table.Rows.Select(r => r.Shard).Distinct().Order());
         Assert.Equal("0/1", table.Metadata[ScanMetadata.Shard]);
+        Assert.Contains("merged by `scan merge` from 3 shard file(s) of a 3-shard run", table.Metadata[ScanMetadata.Merged]);
+        Assert.Equal(3, table.Metadata[ScanMetadata.MergedFiles].Split('\n').Count(File.Exists));
+        Assert.Equal("K", table.Metadata["unit.temperature_K"]);
+        // A shard's own file is not described as merged.
+        Assert.False((await ScanParquet.ReadAsync(new ShardSpec(0, 3).OutputPath(Path.Combine(_dir, "run.parquet")))).Metadata.ContainsKey(ScanMetadata.Merged));
+    }
+
+    [Fact]
+    public async Task Every_numeric_column_carries_its_unit_in_its_own_metadata()
+    {
+        var grid = ScanTestData.Grid(2, 2);
+        string path = await RunShard(grid, 0, 1, name: "units.parquet");
+        await using var stream = File.OpenRead(path);
+        await using var reader = await Parquet.ParquetReader.CreateAsync(stream);
+        using var rg = reader.OpenRowGroupReader(0);
+        var f = reader.Schema.DataFields;
+        Assert.Equal("meV", rg.GetCustomMetadata(f.Single(x => x.Name == "mu"))["unit"]);
+        Assert.Equal("K", rg.GetCustomMetadata(f.Single(x => x.Name == "temperature_K"))["unit"]);
+        Assert.Equal("meV", reader.CustomMetadata["unit.mu"]);
+        Assert.Equal("text", reader.CustomMetadata["unit.phase"]);
     }
 
     [Fact]

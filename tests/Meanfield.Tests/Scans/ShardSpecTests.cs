@@ -58,3 +58,43 @@ public class ShardSpecTests
     public void Shard_file_name_carries_index_and_count() =>
         Assert.Equal(Path.Combine("out", "run.shard-003-of-008.parquet"), new ShardSpec(3, 8).OutputPath(Path.Combine("out", "run.parquet")));
 }
+
+// A single task of an array (--array=7, or one task resubmitted) has SLURM_ARRAY_TASK_COUNT=1 (Slurm documentation,
+// "Job Array Support"): which shard of the original array it is cannot be told from the environment.
+public class ShardSpecSingleTaskTests
+{
+    [Fact]
+    public void A_one_task_array_is_refused_and_asks_for_shard()
+    {
+        var env = new Hashtable
+        {
+            ["SLURM_ARRAY_TASK_ID"] = "7", ["SLURM_ARRAY_TASK_MIN"] = "7", ["SLURM_ARRAY_TASK_MAX"] = "7", ["SLURM_ARRAY_TASK_COUNT"] = "1",
+        };
+        var e = Assert.Throws<ScanError>(() => ShardSpec.FromEnvironment(env));
+        Assert.Contains("--shard I/N", e.Message);
+        Assert.Contains("SLURM_ARRAY_TASK_COUNT=1", e.Message);
+    }
+
+    [Theory]
+    [InlineData(4, 5, 4, true)]    // 5 shards of 4 points: shard 4 is beyond them
+    [InlineData(1, 10, 3, false)]  // 10 shards of 3 points: most are empty
+    public void More_shards_than_points_are_refused(int index, int count, int points, bool beyond)
+    {
+        var e = Assert.Throws<ScanError>(() => new ShardSpec(index, count).CheckHasPoints(points));
+        Assert.Contains($"the grid has {points} points", e.Message);
+        Assert.Contains("nothing written", e.Message);
+        Assert.Equal(beyond, e.Message.Contains($"shard {index} is beyond the points"));
+    }
+
+    [Fact]
+    public void Every_shard_of_at_most_as_many_shards_as_points_has_points()
+    {
+        var grid = ScanTestData.Grid(7, 1);
+        for (int n = 1; n <= 7; n++)
+            for (int i = 0; i < n; i++)
+            {
+                new ShardSpec(i, n).CheckHasPoints(grid.Count);
+                Assert.NotEmpty(grid.Shard(i, n));
+            }
+    }
+}

@@ -8,8 +8,8 @@ namespace Meanfield.Analysis.Curvature;
 /// <summary>
 /// Berry curvature of the occupied bands on a plane k = origin + s span1 + t span2 (reduced coordinates, s, t in
 /// [0, 1]) by the plaquette (link-variable) method of Fukui, Hatsugai &amp; Suzuki, J. Phys. Soc. Jpn. 74, 1674 (2005).
-/// Sign: flux of curl A, A = i&lt;u|grad u&gt;, along span1 x span2. With the Bloch convention II of
-/// <see cref="BlochHamiltonian"/>, u(k + G)_i = exp(-i G.tau_i) u(k)_i closes a full-torus plane exactly.
+/// Sign: flux of curl A, A = i&lt;u|grad u&gt;, along span1 x span2. With the Bloch phase of
+/// <see cref="BlochHamiltonian"/> (site positions included), u(k + G)_i = exp(-i G.tau_i) u(k)_i closes a full-torus plane exactly.
 /// </summary>
 public static class BerryCurvature
 {
@@ -72,8 +72,8 @@ public static class BerryCurvature
     private static bool IsInteger(Vec3 v) =>
         Math.Abs(v.X - Math.Round(v.X)) < 1e-12 && Math.Abs(v.Y - Math.Round(v.Y)) < 1e-12 && Math.Abs(v.Z - Math.Round(v.Z)) < 1e-12;
 
-    // Last row / column are the first ones shifted by a reciprocal lattice vector: copy them with the phase of
-    // convention II, u_a(k + G) = exp(-i G.tau_a) u_a(k).
+    // Last row / column are the first ones shifted by a reciprocal lattice vector: copy them with the phase the site positions
+    // give, u_a(k + G) = exp(-i G.tau_a) u_a(k).
     private static void CloseTorus(Binding.BoundModel model, Complex[] vecs, int n, int occ, int n1, int n2, Vec3 g1, Vec3 g2)
     {
         int cols = n2 + 1, block = n * occ, f = model.Flavours;

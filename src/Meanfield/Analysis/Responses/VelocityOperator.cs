@@ -7,7 +7,7 @@ namespace Meanfield.Analysis.Responses;
 
 /// <summary>
 /// The velocity operators dH/dk_a (a = x, y, z; energy unit x angstrom) of a Bloch source, into caller buffers.
-/// Analytic for <see cref="BlochHamiltonian"/> and <see cref="RenormalizedHamiltonian"/> (convention II: a bond of
+/// Analytic for <see cref="BlochHamiltonian"/> and <see cref="RenormalizedHamiltonian"/> (phases include the site positions: a bond of
 /// vector d = R + tau_j - tau_i contributes i d_a t e^{ik.d}, and the mean field multiplies a bond with correlated ends
 /// by r_i r_j, so dH_MF/dk = G dH/dk G); by central differences of H(k) for any other source.
 /// </summary>

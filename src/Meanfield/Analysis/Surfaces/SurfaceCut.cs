@@ -17,7 +17,7 @@ namespace Meanfield.Analysis.Surfaces;
 /// height form the outermost atomic plane of the top surface. A principal layer is <see cref="ElementaryLayers"/>
 /// consecutive elementary layers (the largest layer offset of any bond). Block basis index =
 /// (sublayer * BasisSize + orbital * F + flavour), sublayer 0 lowest. Phases e^{i k_par.d} over the full bond vector
-/// d = R + tau_j - tau_i (convention II, as <see cref="BlochHamiltonian"/>), so for k_par + kappa n the bulk H equals
+/// d = R + tau_j - tau_i (site positions included, as in <see cref="BlochHamiltonian"/>), so for k_par + kappa n the bulk H equals
 /// H00 + e^{i kappa D} H01 + h.c. up to a diagonal unitary, D = ElementaryLayers x plane spacing (Bloch's theorem
 /// along the normal; common practice).
 /// </para>

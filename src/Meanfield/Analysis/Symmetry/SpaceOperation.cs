@@ -5,7 +5,7 @@ namespace Meanfield.Analysis.Symmetry;
 
 /// <summary>
 /// A space-group operation {g|t} (x -> g x + t) that leaves a model's Bloch Hamiltonian invariant, with its action on
-/// the basis. With the Bloch convention II of <see cref="Bloch.BlochHamiltonian"/> the action is k-independent up to a
+/// the basis. With the Bloch phase of <see cref="Bloch.BlochHamiltonian"/> (site positions included) the action is k-independent up to a
 /// global phase: H(g k)[P(o) a, P(o') b] = chi_o chi_o' (S H(k) S^dag)[o a, o' b], where P is the orbital image,
 /// chi_o = +-1 the orbital's character and S the flavour (spin) matrix of the proper part det(g) g.
 /// </summary>

@@ -24,8 +24,8 @@ public sealed record TrimParity((int N1, int N2, int N3) Index, Vec3 Reduced, in
 /// (-1)^nu = prod over the four TRIM.
 /// </summary>
 /// <remarks>
-/// The inversion {-1|t} maps orbital o at tau_o to P(o) at t - tau_o. In the Bloch convention II
-/// (phases e^{ik.(R + tau_j - tau_i)}) the Bloch state |k, o&gt; goes to e^{ik.t} chi_o |-k, P(o)&gt;, and at a TRIM
+/// The inversion {-1|t} maps orbital o at tau_o to P(o) at t - tau_o. With Bloch phases that include
+/// the site positions, e^{ik.(R + tau_j - tau_i)}, the Bloch state |k, o&gt; goes to e^{ik.t} chi_o |-k, P(o)&gt;, and at a TRIM
 /// -Gamma = Gamma - G with |Gamma - G, o'&gt; = e^{-iG.tau_o'} |Gamma, o'&gt;. The parity operator acting on H(Gamma) is
 /// therefore (P_Gamma)[P(o), o] = chi_o exp(i Gamma.t - i G.tau_P(o)) with G = 2 Gamma: the site-position phase and
 /// the centre phase e^{iG.c} (c = t / 2) both matter, and together they make P_Gamma^2 = 1.

@@ -33,7 +33,7 @@ public sealed record WannierFlow(
 /// </summary>
 /// <remarks>
 /// Wilson loop W = M_0 M_1 ... M_{N-1}, M_j = &lt;u(k_j)|u(k_{j+1})&gt; over the occupied bands, closed with the
-/// convention II image u(k + G)_o = e^{-iG.tau_o} u(k)_o, so the eigenphases -arg(lambda) / 2 pi are the centres in
+/// image (the Bloch phase includes the site positions) u(k + G)_o = e^{-iG.tau_o} u(k)_o, so the eigenphases -arg(lambda) / 2 pi are the centres in
 /// units of the lattice vector along the loop, site positions included. A step of the pump from a to b adds the number
 /// of centres lying between the gap midpoints z_a and z_b; it is trusted when z_a still sits in a gap at b and z_b at a
 /// (clearance), and the count between the midpoints is the same at both ends; otherwise it is halved. Because the

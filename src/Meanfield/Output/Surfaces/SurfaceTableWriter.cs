@@ -12,26 +12,48 @@ namespace Meanfield.Output.Surfaces;
 /// Slab view: one row per (k-point, slab band): k_index, path_length, kx, ky, kz, label, band, energy,
 /// energy_minus_mu, top_weight, bottom_weight. Spectrum view: one row per (k-point, energy): k_index, path_length,
 /// kx, ky, kz, label, energy, energy_minus_mu, surface, bulk. Arcs view: one row per map point: i, j, s1, s2, kx, ky,
-/// kz, surface, bulk. Units: energies in the model's unit, wave vectors in 1/angstrom, spectral functions in states
-/// per energy unit per surface cell and principal layer. The CSV's leading '#' line and the Parquet key-value
-/// metadata carry the units (key "column_units") and the facts of <see cref="SurfaceStudy.Facts"/>.
+/// kz, surface, bulk. Every name with a unit ends in it (energy_meV, kx_per_angstrom, surface_per_meV: states per
+/// energy unit per surface cell and principal layer). Written through <see cref="ColumnTable"/>: units in the CSV's
+/// '#' lines and in the Parquet file and column metadata, with the facts of <see cref="SurfaceStudy.Facts"/>.
 /// </summary>
 public static class SurfaceTableWriter
 {
     private sealed record Column(string Name, string Unit, Array Values);
 
     /// <exception cref="ArgumentException">The extension is neither .csv nor .parquet.</exception>
-    public static void Write(SurfaceReport report, string path, IReadOnlyDictionary<string, string>? metadata = null)
+    public static void Write(SurfaceReport report, string path, IEnumerable<KeyValuePair<string, string>>? metadata = null)
     {
         var ext = System.IO.Path.GetExtension(path).ToLowerInvariant();
         if (ext is not (".csv" or ".parquet")) throw new ArgumentException($"surface table '{path}': unknown extension '{ext}'; use .csv or .parquet");
         var columns = Columns(report);
         var facts = SurfaceStudy.Facts(report).ToList();
         if (metadata != null) facts.AddRange(metadata);
-        facts.Add(new("column_units", string.Join(",", columns.Where(c => c.Unit != "").Select(c => $"{c.Name}={c.Unit}"))));
-        if (ext == ".csv") AtomicFile.Write(path, s => WriteCsv(columns, facts, report, s));
-        else AtomicFile.WriteAsync(path, s => WriteParquet(columns, facts, s)).GetAwaiter().GetResult();
+        // A fact given more than once (notes) keeps every value.
+        var merged = new List<KeyValuePair<string, string>>();
+        foreach (var (key, value) in facts)
+        {
+            int i = merged.FindIndex(kv => kv.Key == key);
+            if (i < 0) merged.Add(new(key, value)); else merged[i] = new(key, merged[i].Value + " | " + value);
+        }
+        ColumnTable.Write(path, $"surface {report.Request.View.ToString().ToLowerInvariant()}", merged,
+            [.. columns.Select(c => new TableData(new TableColumn(Suffixed(c.Name, c.Unit), c.Unit.Length == 0 ? (c.Values is string[] ? "text" : "1") : c.Unit, Meaning(c.Name)), c.Values))]);
     }
+
+    /// <summary>The column name with its unit: energy_meV, kx_per_angstrom, surface_per_meV.</summary>
+    private static string Suffixed(string name, string unit) =>
+        unit.Length == 0 ? name : name + "_" + (unit.StartsWith("1/", StringComparison.Ordinal) ? "per_" + unit[2..] : unit);
+
+    private static string Meaning(string name) => name switch
+    {
+        "k_index" => "index of the k-point along the path", "path_length" => "distance along the path",
+        "kx" or "ky" or "kz" => $"Cartesian k_{name[1]}", "label" => "zone point label at path vertices, empty elsewhere",
+        "band" => "slab band index, 0 = lowest", "energy" => "energy", "energy_minus_mu" => "energy relative to the chemical potential",
+        "top_weight" => "weight of the state on the top face", "bottom_weight" => "weight of the state on the bottom face",
+        "surface" => "surface spectral function, states per energy unit per surface cell and principal layer",
+        "bulk" => "bulk-projected spectral function, same unit", "i" => "map index along s1", "j" => "map index along s2",
+        "s1" => "surface-zone coordinate along the first in-plane axis", "s2" => "surface-zone coordinate along the second in-plane axis",
+        _ => name,
+    };
 
     private static List<Column> Columns(SurfaceReport r)
     {
@@ -85,58 +107,4 @@ public static class SurfaceTableWriter
         return [new("k_index", "", idx), new("path_length", k, len), new("kx", k, kx), new("ky", k, ky), new("kz", k, kz), new("label", "", label)];
     }
 
-    private static void WriteCsv(List<Column> columns, List<KeyValuePair<string, string>> facts, SurfaceReport report, Stream stream)
-    {
-        var inv = CultureInfo.InvariantCulture;
-        using var w = new StreamWriter(stream, new UTF8Encoding(false), 1 << 16);
-        w.Write($"# surface {report.Request.View.ToString().ToLowerInvariant()}");
-        foreach (var (key, value) in facts) w.Write($"; {key}={value.Replace('\n', ' ').Replace(';', ',')}");
-        w.WriteLine();
-        w.WriteLine(string.Join(",", columns.Select(c => c.Name)));
-        int rows = columns[0].Values.Length;
-        var sb = new StringBuilder();
-        for (int r = 0; r < rows; r++)
-        {
-            sb.Clear();
-            for (int c = 0; c < columns.Count; c++)
-            {
-                if (c > 0) sb.Append(',');
-                switch (columns[c].Values)
-                {
-                    case double[] d: sb.Append(d[r].ToString("R", inv)); break;
-                    case int[] i: sb.Append(i[r].ToString(inv)); break;
-                    case string[] s: sb.Append(Quote(s[r])); break;
-                }
-            }
-            w.WriteLine(sb);
-        }
-    }
-
-    // RFC 4180 quoting: labels given as reduced coordinates contain commas.
-    private static string Quote(string f) => f.IndexOfAny([',', '"', '\n', '\r']) < 0 ? f : "\"" + f.Replace("\"", "\"\"") + "\"";
-
-    private static async Task WriteParquet(List<Column> columns, List<KeyValuePair<string, string>> facts, Stream stream)
-    {
-        var fields = columns.Select(c => c.Values switch
-        {
-            double[] => (DataField)new DataField<double>(c.Name),
-            int[] => new DataField<int>(c.Name),
-            _ => new DataField<string>(c.Name),
-        }).ToArray();
-        var schema = new ParquetSchema(fields);
-        var meta = new Dictionary<string, string>();
-        foreach (var (key, value) in facts) meta[key] = meta.TryGetValue(key, out var old) ? old + " | " + value : value;
-        await using var writer = await ParquetWriter.CreateAsync(schema, stream);
-        writer.CustomMetadata = meta;
-        using var rg = writer.CreateRowGroup();
-        for (int c = 0; c < columns.Count; c++)
-        {
-            switch (columns[c].Values)
-            {
-                case double[] d: await rg.WriteAsync<double>(fields[c], d); break;
-                case int[] i: await rg.WriteAsync<int>(fields[c], i); break;
-                case string[] s: await rg.WriteAsync(fields[c], s); break;
-            }
-        }
-    }
 }

@@ -9,9 +9,9 @@ namespace Meanfield.Output.Topology;
 
 /// <summary>
 /// Writes the anomalous Hall and curvature-dipole curves as long tables, one row per (temperature, mu), in CSV or
-/// Parquet by extension, atomically. Column names carry their unit after a double underscore
-/// ("sigma_xy__S_per_cm", "mu__meV", "temperature__K"); the CSV's '#' line and the Parquet key-value metadata repeat
-/// the units and the provenance.
+/// Parquet by extension, atomically, through <see cref="ColumnTable"/>. Column names end in their unit
+/// ("sigma_xy_S_per_cm", "mu_meV", "temperature_K"; a dimensionless dipole is plain "D_xy"); the CSV's '#' lines and the
+/// Parquet file and column metadata repeat the units, with the provenance.
 /// </summary>
 public static class ResponseTables
 {
@@ -26,10 +26,10 @@ public static class ResponseTables
         {
             if (r.Dimension == 2 && c < 2) continue;
             int cc = c;
-            cols.Add(($"{names[c]}__{su}", Grid(r.ChemicalPotentials.Count, r.Temperatures.Count, (it, im) => r.Conductivity[it, im][cc])));
+            cols.Add(($"{names[c]}_{su}", r.Unit, $"anomalous Hall conductivity {names[c]}", Grid(r.ChemicalPotentials.Count, r.Temperatures.Count, (it, im) => r.Conductivity[it, im][cc])));
         }
         if (r.Dimension == 2)
-            cols.Add(("sigma_xy_stacked__S_per_cm", Grid(r.ChemicalPotentials.Count, r.Temperatures.Count,
+            cols.Add(("sigma_xy_stacked_S_per_cm", "S/cm", "sigma_xy of a stack of layers at the layer spacing", Grid(r.ChemicalPotentials.Count, r.Temperatures.Count,
                 (it, im) => r.StackedSiemensPerCentimetre(r.Conductivity[it, im].Z))));
         var meta = new Dictionary<string, string>(metadata)
         {
@@ -51,7 +51,7 @@ public static class ResponseTables
         for (int i = 0; i < 9; i++)
         {
             int ii = i;
-            cols.Add(($"D_{axes[i / 3]}{axes[i % 3]}__{du}", Grid(r.ChemicalPotentials.Count, r.Temperatures.Count, (it, im) => r.Tensor[it, im][ii])));
+            cols.Add(($"D_{axes[i / 3]}{axes[i % 3]}{(du == "1" ? "" : "_" + du)}", du, $"curvature dipole D_{axes[i / 3]}{axes[i % 3]} (derivative along {axes[i / 3]}, curvature component {axes[i % 3]})", Grid(r.ChemicalPotentials.Count, r.Temperatures.Count, (it, im) => r.Tensor[it, im][ii])));
         }
         var meta = new Dictionary<string, string>(metadata)
         {
@@ -64,14 +64,14 @@ public static class ResponseTables
         Write(path, cols, meta);
     }
 
-    private static List<(string Name, double[] Values)> Base(IReadOnlyList<double> mu, IReadOnlyList<double> t, double mu0, EnergyUnit unit)
+    private static List<(string Name, string Unit, string Meaning, double[] Values)> Base(IReadOnlyList<double> mu, IReadOnlyList<double> t, double mu0, EnergyUnit unit)
     {
         string u = unit.Symbol();
         return
         [
-            ($"mu__{u}", Grid(mu.Count, t.Count, (_, im) => mu[im])),
-            ($"mu_minus_mu0__{u}", Grid(mu.Count, t.Count, (_, im) => mu[im] - mu0)),
-            ("temperature__K", Grid(mu.Count, t.Count, (it, _) => t[it] * unit.Kelvins())),
+            ($"mu_{u}", u, "chemical potential (rigid bands)", Grid(mu.Count, t.Count, (_, im) => mu[im])),
+            ($"mu_minus_mu0_{u}", u, "mu relative to the solution's mu0", Grid(mu.Count, t.Count, (_, im) => mu[im] - mu0)),
+            ("temperature_K", "K", "temperature", Grid(mu.Count, t.Count, (it, _) => t[it] * unit.Kelvins())),
         ];
     }
 
@@ -83,34 +83,7 @@ public static class ResponseTables
         return v;
     }
 
-    private static void Write(string path, List<(string Name, double[] Values)> cols, Dictionary<string, string> meta)
-    {
-        var ext = Path.GetExtension(path).ToLowerInvariant();
-        switch (ext)
-        {
-            case ".csv":
-                AtomicFile.Write(path, s =>
-                {
-                    var inv = CultureInfo.InvariantCulture;
-                    using var w = new StreamWriter(s, new UTF8Encoding(false), 1 << 16);
-                    w.WriteLine("# " + string.Join("; ", meta.Select(kv => $"{kv.Key}={kv.Value.Replace('\n', ' ')}")));
-                    w.WriteLine(string.Join(",", cols.Select(c => c.Name)));
-                    for (int r = 0; r < cols[0].Values.Length; r++)
-                        w.WriteLine(string.Join(",", cols.Select(c => c.Values[r].ToString("R", inv))));
-                });
-                break;
-            case ".parquet":
-                AtomicFile.WriteAsync(path, async s =>
-                {
-                    var schema = new ParquetSchema(cols.Select(c => (Field)new DataField<double>(c.Name)).ToArray());
-                    await using var writer = await ParquetWriter.CreateAsync(schema, s);
-                    writer.CustomMetadata = meta;
-                    using var rg = writer.CreateRowGroup();
-                    for (int i = 0; i < cols.Count; i++) await rg.WriteAsync<double>(schema.DataFields[i], cols[i].Values);
-                }).GetAwaiter().GetResult();
-                break;
-            default:
-                throw new ArgumentException($"Response table '{path}': unknown extension '{ext}'; use .csv or .parquet.");
-        }
-    }
+    private static void Write(string path, List<(string Name, string Unit, string Meaning, double[] Values)> cols, Dictionary<string, string> meta) =>
+        ColumnTable.Write(path, meta.GetValueOrDefault("quantity") ?? "response", [.. meta],
+                          [.. cols.Select(c => new TableData(new TableColumn(c.Name, c.Unit, c.Meaning), c.Values))]);
 }

@@ -21,7 +21,7 @@ public sealed class TopologicalSurfaceTests
     private const double Lambda = 0.125;
 
     /// <summary>
-    /// nu0 from parities. Inversion about the bond centre tau_B / 2 maps A to B; in Bloch convention II at a TRIM k its
+    /// nu0 from parities. Inversion about the bond centre tau_B / 2 maps A to B; with Bloch phases that include the site positions, at a TRIM k its
     /// matrix is &lt;A|P|B&gt; = e^{i k.tau_B}, &lt;B|P|A&gt; = e^{-i k.tau_B} (identity on spin), derived from
     /// P|s, R&gt; = |s', -R&gt; and |s, -k&gt; = e^{-i G.tau_s} |s, k&gt; for -k = k - G.
     /// </summary>
