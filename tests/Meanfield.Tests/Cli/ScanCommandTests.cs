@@ -48,10 +48,19 @@ public sealed class ScanCommandTests : IDisposable
         var a = await ScanParquet.ReadAsync(full);
         var b = await ScanParquet.ReadAsync(part);
         Assert.Equal(6, b.Rows.Count);
-        string Print(ScanTable t, ScanRow r) => string.Join("|", t.Schema.Columns
-            .Where(c => c.Field.Name is not ("wall_seconds" or "warm_started"))
-            .Select(c => c.Value(r) is double d ? d.ToString("G9", System.Globalization.CultureInfo.InvariantCulture) : c.Value(r)?.ToString()));
-        Assert.Equal(a.Rows.Select(r => Print(a, r)), b.Rows.Select(r => Print(b, r)));
+        // The path of the solver (which neighbour warm-started a point, hence its iterations and final residual) may
+        // differ after a resume; the answers must agree within the solver's tolerance (1e-10 in the scan file) and the
+        // labels exactly.
+        string[] path = ["wall_seconds", "warm_started", "iterations", "residual_norm"];
+        Assert.Equal(a.Rows.Count, b.Rows.Count);
+        for (int i = 0; i < a.Rows.Count; i++)
+            foreach (var c in a.Schema.Columns.Where(c => !path.Contains(c.Field.Name)))
+            {
+                object? x = c.Value(a.Rows[i]), y = b.Schema.Columns.Single(d => d.Field.Name == c.Field.Name).Value(b.Rows[i]);
+                if (x is double dx && y is double dy)
+                    Assert.True(Math.Abs(dx - dy) <= 1e-7 * Math.Max(1, Math.Abs(dx)), $"row {i} {c.Field.Name}: {dx:R} against {dy:R}");
+                else Assert.Equal(x?.ToString(), y?.ToString());
+            }
     }
 
     [Fact]
