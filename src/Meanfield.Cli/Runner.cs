@@ -32,9 +32,7 @@ public static class Runner
             if (helpText is not null) output.Write(helpText.ToString().Replace($"  {root.Name} ", "  meanfield "));
             return code;
         }
-        catch (ModelError e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
-        catch (UserInputException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
-        catch (Output.OneBodyModelError e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
+        catch (InputException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
         catch (InvalidDataException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
         catch (FileNotFoundException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
         catch (DirectoryNotFoundException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }

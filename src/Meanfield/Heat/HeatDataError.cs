@@ -1,7 +1,7 @@
 namespace Meanfield.Heat;
 
 /// <summary>Bad measured heat-capacity input: names the file, the 1-based line and the column at fault.</summary>
-public sealed class HeatDataError : Exception
+public sealed class HeatDataError : InputException
 {
     public HeatDataError(string file, int line, string column, string problem)
         : base($"{file}:{line}: column '{column}': {problem}")

@@ -4,7 +4,7 @@ namespace Meanfield.Models;
 /// Any problem with a model file or an override: the message reads "file:line:col: field: what is wrong (did you
 /// mean 'x'?)". Loading and binding throw nothing else for bad input.
 /// </summary>
-public sealed class ModelError : Exception
+public sealed class ModelError : InputException
 {
     public string File { get; }
     public int? Line { get; }

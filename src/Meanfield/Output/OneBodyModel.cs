@@ -13,7 +13,7 @@ namespace Meanfield.Output;
 /// field. The command line reports it as bad input (exit 2).
 /// </summary>
 public sealed class OneBodyModelError(string file, string where, string field, string problem)
-    : Exception($"{file}{(where.Length > 0 ? ":" + where : "")}: {field}: {problem}")
+    : InputException($"{file}{(where.Length > 0 ? ":" + where : "")}: {field}: {problem}")
 {
     /// <summary>The file that was read.</summary>
     public string File { get; } = file;

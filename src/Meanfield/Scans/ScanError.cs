@@ -1,7 +1,7 @@
 namespace Meanfield.Scans;
 
 /// <summary>A scan cannot run or be merged because of its input (bad shard, mixed scans, existing partial output).</summary>
-public class ScanError(string message) : Exception(message);
+public class ScanError(string message) : InputException(message);
 
 /// <summary>A file that should be a scan table cannot be read: not Parquet, truncated or damaged.</summary>
 public sealed class ScanUnreadableError(string path, Exception inner)
