@@ -41,8 +41,8 @@ public sealed class ProjectedBulk
 
     /// <summary>
     /// Distance from <paramref name="energy"/> to the projected bulk spectrum at k_par: min over bands and over the
-    /// normal wave vector of |E_n - energy|, from <see cref="Samples"/> phases with every local minimum within four
-    /// times the smallest sample refined by golden-section search (heavy pockets are narrow in the normal direction).
+    /// normal wave vector of |E_n - energy|, from <see cref="Samples"/> phases with every sampled local minimum refined by
+    /// golden-section search within its neighbouring samples (heavy pockets are narrow in the normal direction).
     /// Zero or tiny where bulk states at that energy project onto k_par.
     /// </summary>
     public double Clearance(Vec3 kPar, double energy)
@@ -51,10 +51,12 @@ public sealed class ProjectedBulk
         for (int s = 0; s < Samples; s++) f[s] = Distance(kPar, 2 * Math.PI * s / Samples, energy);
         double best = double.PositiveInfinity;
         foreach (var v in f) best = Math.Min(best, v);
-        double limit = 4 * best, step = 2 * Math.PI / Samples;
+        double step = 2 * Math.PI / Samples;
         for (int s = 0; s < Samples; s++)
         {
-            if (f[s] > limit || f[s] > f[(s + 1) % Samples] || f[s] > f[(s + Samples - 1) % Samples]) continue;
+            // Every sampled local minimum: a heavy pocket or cone is a narrow dip in the normal direction whose bottom
+            // can lie far below its neighbouring samples, so none may be skipped.
+            if (f[s] > f[(s + 1) % Samples] || f[s] > f[(s + Samples - 1) % Samples]) continue;
             // Golden-section on [phi_s - step, phi_s + step].
             double a = (s - 1) * step, b = (s + 1) * step, g = 0.5 * (Math.Sqrt(5) - 1);
             double c = b - g * (b - a), d = a + g * (b - a), fc = Distance(kPar, c, energy), fd = Distance(kPar, d, energy);

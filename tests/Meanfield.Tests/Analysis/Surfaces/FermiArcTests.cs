@@ -89,4 +89,21 @@ public sealed class FermiArcTests
         Assert.Equal(LoopVerdict.BulkGapless, c.Verdict);
         Assert.Equal(0, c.Net);
     }
+
+    [Fact]
+    public void A_loop_inside_the_projected_bulk_pocket_cannot_be_decided_and_one_outside_counts_the_chirality()
+    {
+        // Near the node the lattice model is the cone E = t|q| (velocity t a, common practice), so at E = 0.1 t the bulk
+        // pocket projects onto a disk of radius about 0.1 / a: a loop inside it meets bulk states at E, one well outside
+        // is gapped and still counts the chirality (Wan et al. 2011: any energy gapped on the loop).
+        var bulk = SurfaceModels.Weyl(1, K0);
+        var cut = new SurfaceCut(bulk.Model, LatticePlane.FromIndices(bulk.Model.Lattice, 1, 0, 0));
+        var (nodes, _) = ProjectedNodes.Find(bulk, cut.Zone, 0.0, 8);
+        double scale = LowEnergyScale.Width(bulk, 0.0);
+        var inside = SurfaceLoops.OnCircle(cut, nodes[0].KPar, 0.05, 0.1, scale);
+        Assert.Equal(LoopVerdict.BulkGapless, inside.Verdict);
+        var outside = SurfaceLoops.OnCircle(cut, nodes[0].KPar, 0.4, 0.1, scale);
+        Assert.Equal(LoopVerdict.Decided, outside.Verdict);
+        Assert.Equal(nodes[0].Chirality, outside.Net);
+    }
 }
