@@ -1,7 +1,5 @@
 using System.Globalization;
-using Meanfield.Analysis.Dos;
 using Meanfield.Bloch;
-using Meanfield.Lattices;
 using Meanfield.Renormalization;
 using Meanfield.Solutions;
 using Meanfield.Units;
@@ -77,6 +75,11 @@ public sealed class SurfaceReport
 /// </summary>
 public static class SurfaceStudy
 {
+    /// <summary>
+    /// Runs the requested view on the solution's Hamiltonian at the solution's chemical potential. The arcs view also
+    /// counts surface states around every projected node (<see cref="SurfaceLoops"/>) and traces the arcs
+    /// (<see cref="FermiArcs"/>).
+    /// </summary>
     /// <exception cref="ArgumentException">Bad plane, unknown termination, 2D or momentum-free model, fewer than 2
     /// layers, a bad path, non-positive eta, an empty window or out-of-range counts. Nothing is computed then.</exception>
     public static SurfaceReport Run(Solution solution, SurfaceRequest request)
