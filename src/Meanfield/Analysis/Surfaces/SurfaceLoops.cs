@@ -49,7 +49,8 @@ public static class SurfaceLoops
     /// Counts around projected node <paramref name="index"/>: circles of the radii of
     /// <see cref="SurfaceTolerances.LoopRadiusFractions"/> (largest first) until one keeps the bulk at least
     /// <see cref="SurfaceTolerances.MinClearanceFraction"/> x <paramref name="scale"/> away from the energy; "cannot be
-    /// decided" (<see cref="LoopVerdict.BulkGapless"/>) when none does. A single projected node is given a loop of
+    /// decided" (<see cref="LoopVerdict.BulkGapless"/>) when none does; each radius is tried centred on the node and then
+    /// moved off it by <see cref="SurfaceTolerances.LoopShiftFraction"/> of the radius. A single projected node is given a loop of
     /// <see cref="SurfaceTolerances.LoopRadiusFractions"/>[0] x |b|_min.
     /// </summary>
     public static LoopCount Around(SurfaceCut cut, IReadOnlyList<ProjectedNode> nodes, int index, double energy, double scale)
@@ -62,9 +63,16 @@ public static class SurfaceLoops
         LoopCount? last = null;
         foreach (double f in SurfaceTolerances.LoopRadiusFractions)
         {
-            var c = OnCircle(cut, centre, f * separation, energy, scale) with { Node = index };
-            if (c.Verdict == LoopVerdict.Decided) return c;
-            last = c;
+            double radius = f * separation;
+            // Centred first, then moved by LoopShiftFraction x radius along +-e1, +-e2: the node stays inside and, with
+            // radius at most 0.3 of the separation, every other projected node stays outside.
+            foreach (var (u, v) in new[] { (0, 0), (1, 0), (0, 1), (-1, 0), (0, -1) })
+            {
+                var at = centre + SurfaceTolerances.LoopShiftFraction * radius * (u * zone.E1 + v * zone.E2);
+                var c = OnCircle(cut, at, radius, energy, scale) with { Node = index };
+                if (c.Verdict == LoopVerdict.Decided) return c;
+                last = c;
+            }
         }
         return last!;
     }

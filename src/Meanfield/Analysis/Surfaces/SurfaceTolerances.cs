@@ -11,6 +11,9 @@ public static class SurfaceTolerances
     /// <summary>Loop radii tried around a projected node, largest first, as fractions of the distance to the nearest
     /// other projected node (folded over the surface zone): every loop encloses that node and no other.</summary>
     public static IReadOnlyList<double> LoopRadiusFractions { get; } = [0.3, 0.2, 0.12, 0.07, 0.04];
+    /// <summary>A loop that meets bulk states is also tried moved off the node by this fraction of its radius (the node
+    /// stays inside; with radii at most 0.3 of the separation no other node comes inside).</summary>
+    public const double LoopShiftFraction = 0.5;
     /// <summary>A loop is used only when the projected bulk spectrum stays at least this fraction of W away from the
     /// counting energy all along it; otherwise a smaller loop is tried, and the count is "cannot be decided" when none
     /// qualifies.</summary>
