@@ -46,7 +46,7 @@ public static class FacetCommand
             };
             var src = solution.Resolve(parse, o);
             var watch = System.Diagnostics.Stopwatch.StartNew();
-            var report = SurfaceStudy.Run(src.Hamiltonian, src.Mu, request);
+            var report = SurfaceStudy.Run(src, request);
             var meta = new Dictionary<string, string> { ["source"] = ResultProvenance.SourceFile(src), ["source_kind"] = src.OriginText, ["model_sha256"] = Provenance.Hash(src.Model.SourceText), ["tool_version"] = Provenance.ToolVersion };
             SurfaceTableWriter.Write(report, outPath, meta);
             var picture = Path.ChangeExtension(outPath, ".png");
@@ -57,6 +57,7 @@ public static class FacetCommand
             o.WriteLine($"built from the {report.Hamiltonian}");
             o.WriteLine(string.Create(inv, $"mu = {report.ChemicalPotential:G8} {src.Model.Unit.Symbol()} ({report.ChemicalPotentialOrigin}); heavy-band scale {report.Scale:G4}, eta {report.Eta:G4} {src.Model.Unit.Symbol()}; {watch.Elapsed.TotalSeconds:F1} s"));
             foreach (var n in report.Nodes) o.WriteLine(string.Create(inv, $"projected node at ({n.S1:F4}, {n.S2:F4}) 1/angstrom: net chirality {n.Chirality:+0;-0;0} from {n.Count} node(s)"));
+            foreach (var line in SurfaceStudy.TopologyLines(report)) o.WriteLine(line);
             foreach (var note in report.Notes) parse.InvocationConfiguration.Error.WriteLine($"note: {note}");
             o.WriteLine($"wrote {outPath} and {picture}");
             return ExitCodes.Success;

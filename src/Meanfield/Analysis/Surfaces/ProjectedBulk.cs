@@ -40,6 +40,45 @@ public sealed class ProjectedBulk
     }
 
     /// <summary>
+    /// Distance from <paramref name="energy"/> to the projected bulk spectrum at k_par: min over bands and over the
+    /// normal wave vector of |E_n - energy|, from <see cref="Samples"/> phases with every sampled local minimum refined by
+    /// golden-section search within its neighbouring samples (heavy pockets are narrow in the normal direction).
+    /// Zero or tiny where bulk states at that energy project onto k_par.
+    /// </summary>
+    public double Clearance(Vec3 kPar, double energy)
+    {
+        Span<double> f = stackalloc double[Samples];
+        for (int s = 0; s < Samples; s++) f[s] = Distance(kPar, 2 * Math.PI * s / Samples, energy);
+        double best = double.PositiveInfinity;
+        foreach (var v in f) best = Math.Min(best, v);
+        double step = 2 * Math.PI / Samples;
+        for (int s = 0; s < Samples; s++)
+        {
+            // Every sampled local minimum: a heavy pocket or cone is a narrow dip in the normal direction whose bottom
+            // can lie far below its neighbouring samples, so none may be skipped.
+            if (f[s] > f[(s + 1) % Samples] || f[s] > f[(s + Samples - 1) % Samples]) continue;
+            // Golden-section on [phi_s - step, phi_s + step].
+            double a = (s - 1) * step, b = (s + 1) * step, g = 0.5 * (Math.Sqrt(5) - 1);
+            double c = b - g * (b - a), d = a + g * (b - a), fc = Distance(kPar, c, energy), fd = Distance(kPar, d, energy);
+            for (int it = 0; it < 30; it++)
+            {
+                if (fc < fd) { b = d; d = c; fd = fc; c = b - g * (b - a); fc = Distance(kPar, c, energy); }
+                else { a = c; c = d; fc = fd; d = a + g * (b - a); fd = Distance(kPar, d, energy); }
+            }
+            best = Math.Min(best, Math.Min(fc, fd));
+        }
+        return best;
+    }
+
+    private double Distance(Vec3 kPar, double phi, double energy)
+    {
+        Bands(kPar, phi, _values);
+        double d = double.PositiveInfinity;
+        foreach (var v in _values) d = Math.Min(d, Math.Abs(v - energy));
+        return d;
+    }
+
+    /// <summary>
     /// The projected gap at k_par between the highest of the lowest <paramref name="occupied"/> bands of a principal
     /// layer and the next band: (top of the lower bands, bottom of the upper bands) over all sampled phi. The gap is
     /// open when Upper &gt; Lower.

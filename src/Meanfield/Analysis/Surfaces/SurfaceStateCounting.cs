@@ -19,7 +19,9 @@ public sealed record SurfaceDiracPoint(string Label, Vec3 KPar, double Energy, d
 /// Wan, Turner, Vishwanath &amp; Savrasov, PRB 83, 205101 (2011)), and the surface Dirac points at the surface TRIM
 /// (an odd number on every face of a strong topological insulator: Fu, Kane &amp; Mele, PRL 98, 106803 (2007)).
 /// A state is on the top face when its weight on the top <c>faceDepth</c> principal layers exceeds
-/// <see cref="FaceThreshold"/>.
+/// <see cref="FaceThreshold"/>. The slab count needs surface states that decay well inside the slab; heavy surface
+/// states near a node decay over hundreds of layers, so the arc view counts from the semi-infinite crystal instead
+/// (<see cref="SurfaceLoops"/>).
 /// </summary>
 public static class SurfaceStateCounting
 {

@@ -1,8 +1,7 @@
 using System.Globalization;
-using Meanfield.Analysis.Dos;
 using Meanfield.Bloch;
-using Meanfield.Lattices;
 using Meanfield.Renormalization;
+using Meanfield.Solutions;
 using Meanfield.Units;
 
 namespace Meanfield.Analysis.Surfaces;
@@ -48,7 +47,7 @@ public sealed class SurfaceReport
     public required SurfaceCut Cut { get; init; }
     public required SurfaceRequest Request { get; init; }
     public required double ChemicalPotential { get; init; }
-    /// <summary>"solution" or "mesh Fermi level of the bare model".</summary>
+    /// <summary>Where mu comes from: "solution (RULE)".</summary>
     public required string ChemicalPotentialOrigin { get; init; }
     public required double Scale { get; init; }
     public required double Eta { get; init; }
@@ -59,6 +58,10 @@ public sealed class SurfaceReport
     public SurfacePathSpectrum? Spectrum { get; init; }
     public SurfaceMap? Map { get; init; }
     public IReadOnlyList<ProjectedNode> Nodes { get; init; } = [];
+    /// <summary>Arcs view: the loop count at mu around each projected node (same order as <see cref="Nodes"/>).</summary>
+    public IReadOnlyList<LoopCount> Loops { get; init; } = [];
+    /// <summary>Arcs view: the traced Fermi arcs and the projected nodes each joins.</summary>
+    public IReadOnlyList<FermiArc> Arcs { get; init; } = [];
     /// <summary>Plain-language notes (no node search, points that did not converge, ...).</summary>
     public IReadOnlyList<string> Notes { get; init; } = [];
     /// <summary>Decimation points that did not converge (0 for the slab view).</summary>
@@ -72,13 +75,16 @@ public sealed class SurfaceReport
 /// </summary>
 public static class SurfaceStudy
 {
-    /// <summary>Mesh of the zero-temperature Fermi level of a bare model.</summary>
-    public const int FermiMesh = 12;
-
+    /// <summary>
+    /// Runs the requested view on the solution's Hamiltonian at the solution's chemical potential. The arcs view also
+    /// counts surface states around every projected node (<see cref="SurfaceLoops"/>) and traces the arcs
+    /// (<see cref="FermiArcs"/>).
+    /// </summary>
     /// <exception cref="ArgumentException">Bad plane, unknown termination, 2D or momentum-free model, fewer than 2
     /// layers, a bad path, non-positive eta, an empty window or out-of-range counts. Nothing is computed then.</exception>
-    public static SurfaceReport Run(IBlochSource source, double? chemicalPotential, SurfaceRequest request)
+    public static SurfaceReport Run(Solution solution, SurfaceRequest request)
     {
+        var source = solution.Hamiltonian;
         var model = source.Model;
         var plane = LatticePlane.Parse(request.Plane, model.Lattice);
         var bonds = SurfaceCut.BondsOf(source);
@@ -90,7 +96,7 @@ public static class SurfaceStudy
         if (request.Window is { } w && !(w.High > w.Low)) throw new ArgumentException($"window {w.Low} {w.High}: the upper end must exceed the lower");
         var path = request.View == SurfaceView.Arcs ? null : cut.Zone.Path(request.Path).Sample(request.Points);
 
-        double mu = chemicalPotential ?? MeshFermiLevel.Find(MeshSpectrum.Compute(source, new KMesh(model.Lattice, FermiMesh), false), model.ElectronsPerCell);
+        double mu = solution.Mu;
         double scale = LowEnergyScale.Width(source, mu);
         double eta = request.Eta ?? LowEnergyScale.DefaultEtaFraction * scale;
         var window = request.Window ?? (-SurfaceRequest.WindowFraction * scale, SurfaceRequest.WindowFraction * scale);
@@ -101,6 +107,17 @@ public static class SurfaceStudy
             var (found, note) = ProjectedNodes.Find(source, cut.Zone, mu, request.NodeMesh);
             nodes = found;
             if (note is not null) notes.Add(note);
+        }
+        IReadOnlyList<LoopCount> loops = [];
+        IReadOnlyList<FermiArc> arcs = [];
+        if (request.View == SurfaceView.Arcs && nodes.Count > 0)
+        {
+            var counts = new LoopCount[nodes.Count];
+            Parallel.For(0, nodes.Count, i => counts[i] = SurfaceLoops.Around(cut, nodes, i, mu, scale));
+            loops = counts;
+            arcs = FermiArcs.Trace(cut, nodes, loops, scale);
+            int undecided = counts.Count(c => c.Verdict != LoopVerdict.Decided);
+            if (undecided > 0) notes.Add($"{undecided} loop count(s) cannot be decided: the bulk is gapless at mu on every loop tried");
         }
         SlabBands? bands = null; SurfacePathSpectrum? spectrum = null; SurfaceMap? map = null;
         switch (request.View)
@@ -124,9 +141,9 @@ public static class SurfaceStudy
         return new SurfaceReport
         {
             Cut = cut, Request = request, ChemicalPotential = mu,
-            ChemicalPotentialOrigin = chemicalPotential is null ? "mesh Fermi level of the bare model" : "solution",
+            ChemicalPotentialOrigin = $"{solution.OriginText} ({Output.SolutionDocument.RuleName(solution.MuRule)})",
             Scale = scale, Eta = eta, Window = window, Hamiltonian = Describe(source),
-            Slab = bands, Spectrum = spectrum, Map = map, Nodes = nodes, Notes = notes,
+            Slab = bands, Spectrum = spectrum, Map = map, Nodes = nodes, Loops = loops, Arcs = arcs, Notes = notes,
         };
     }
 
@@ -134,6 +151,29 @@ public static class SurfaceStudy
     public static string Describe(IBlochSource source) => source is RenormalizedHamiltonian
         ? "renormalized Hamiltonian of the bulk saddle point (static r and lambda of the bulk solution; no layer-resolved self-consistency)"
         : "bare model (no mean-field renormalization)";
+
+    /// <summary>
+    /// Plain-text lines on the loop counts (one per projected node: loop, bulk clearance, signed crossings against the
+    /// projected chirality, or why it cannot be decided) and on the arcs (which projected nodes each joins).
+    /// </summary>
+    public static IEnumerable<string> TopologyLines(SurfaceReport r)
+    {
+        var inv = CultureInfo.InvariantCulture;
+        string u = r.Cut.Model.Unit.Symbol();
+        string At(int i) => string.Create(inv, $"({r.Nodes[i].S1:F4}, {r.Nodes[i].S2:F4}) [{r.Nodes[i].Chirality:+0;-0;0}]");
+        foreach (var l in r.Loops)
+        {
+            var n = r.Nodes[l.Node];
+            string head = string.Create(inv, $"loop at mu around {At(l.Node)}, radius {l.Radius:G3} 1/angstrom, bulk clearance {l.Clearance:G3} {u}");
+            if (l.Verdict != LoopVerdict.Decided) { yield return $"{head}: cannot be decided ({(l.Verdict == LoopVerdict.BulkGapless ? "bulk states at mu on every loop tried" : "decimation did not converge")})"; continue; }
+            string expected = n.Undetermined > 0 ? $"{n.Undetermined} chirality undetermined" : n.Chirality == l.Net ? "= net chirality" : $"differs from net chirality {n.Chirality:+0;-0;0}";
+            yield return string.Create(inv, $"{head}: {l.Up} up, {l.Down} down, net {l.Net:+0;-0;0} {expected}");
+        }
+        foreach (var a in r.Arcs)
+            yield return a.To is int to
+                ? $"Fermi arc joins {At(a.From)} and {At(to)}{(a.BothEnds ? " (traced from both ends)" : "")}"
+                : $"Fermi arc from {At(a.From)}: unresolved, {a.Unresolved}";
+    }
 
     /// <summary>Key facts of a report as text pairs, for file headers and metadata.</summary>
     public static IReadOnlyList<KeyValuePair<string, string>> Facts(SurfaceReport r)
@@ -163,6 +203,22 @@ public static class SurfaceStudy
             list.Add(new("surface", "semi-infinite crystal below the top face (Lopez Sancho, Lopez Sancho & Rubio decimation); spectral functions per energy unit per surface cell and principal layer"));
             list.Add(new("not_converged_points", r.NotConverged.ToString(inv)));
             list.Add(new("projected_nodes", string.Join(";", r.Nodes.Select(n => string.Create(inv, $"{n.S1:G6},{n.S2:G6},{n.Chirality:+0;-0;0}")))));
+        }
+        if (r.Loops.Count > 0)
+        {
+            list.Add(new("loop_counts", System.Text.Json.JsonSerializer.Serialize(r.Loops.Select(l => new
+            {
+                node = new[] { r.Nodes[l.Node].S1, r.Nodes[l.Node].S2 }, chirality = r.Nodes[l.Node].Chirality,
+                nodes = r.Nodes[l.Node].Count, undetermined = r.Nodes[l.Node].Undetermined,
+                verdict = l.Verdict.ToString().ToLowerInvariant(), radius = l.Radius, clearance = l.Clearance, eta = l.Eta,
+                up = l.Up, down = l.Down, net = l.Net,
+            }))));
+            list.Add(new("fermi_arcs", System.Text.Json.JsonSerializer.Serialize(r.Arcs.Select(a => new
+            {
+                from = new[] { r.Nodes[a.From].S1, r.Nodes[a.From].S2 }, from_chirality = r.Nodes[a.From].Chirality,
+                to = a.To is int t ? new[] { r.Nodes[t].S1, r.Nodes[t].S2 } : null, to_chirality = a.To is int u ? r.Nodes[u].Chirality : (int?)null,
+                both_ends = a.BothEnds, unresolved = a.Unresolved,
+            }))));
         }
         if (r.Request.Skin is { } s)
             list.Add(new("surface_potential", string.Create(inv, $"{s.Shift:G6} on {s.Depth} elementary layer(s){(r.Request.SkinOnBothFaces && r.Request.View == SurfaceView.Slab ? ", both faces" : ", top face")}")));

@@ -113,6 +113,7 @@ public static class SurfacePlots
             var ys = zone.Boundary.Select(b => b.S2).Append(zone.Boundary[0].S2).ToArray();
             var edge = plot.Add.ScatterLine(xs, ys, new Color(30, 160, 80));
             edge.LineWidth = 1.5f;
+            if (a == m.Surface) DrawArcs(plot, r);
             foreach (var n in r.Nodes)
             {
                 var mark = plot.Add.Marker(n.S1, n.S2, MarkerShape.OpenCircle, 14, n.Chirality > 0 ? new Color(0, 150, 60) : n.Chirality < 0 ? new Color(230, 120, 0) : Colors.Gray);
@@ -135,6 +136,46 @@ public static class SurfacePlots
             return plot;
         }
         return (Panel(m.Surface, "surface A_s"), Panel(m.Bulk, "bulk projected A_b"));
+    }
+
+    // Traced Fermi arcs (which nodes each joins) as thin dashed lines, broken where they fold across the zone edge;
+    // counting loops as dotted circles.
+    private static void DrawArcs(Plot plot, SurfaceReport r)
+    {
+        var ink = new Color(20, 20, 20);
+        double jump = 0.25 * Math.Min(r.Cut.Zone.B1.Norm, r.Cut.Zone.B2.Norm);
+        foreach (var arc in r.Arcs)
+        {
+            var piece = new List<(double X, double Y)>();
+            void Flush()
+            {
+                if (piece.Count > 1)
+                {
+                    var line = plot.Add.ScatterLine(piece.Select(q => q.X).ToArray(), piece.Select(q => q.Y).ToArray(), ink);
+                    line.LineWidth = 1.6f; line.LinePattern = LinePattern.Dashed; line.MarkerSize = 0;
+                }
+                piece.Clear();
+            }
+            foreach (var q in arc.Points)
+            {
+                if (piece.Count > 0 && Math.Abs(q.S1 - piece[^1].X) + Math.Abs(q.S2 - piece[^1].Y) > jump) Flush();
+                piece.Add((q.S1, q.S2));
+            }
+            Flush();
+        }
+        foreach (var l in r.Loops)
+        {
+            if (l.Verdict != LoopVerdict.Decided) continue;
+            var (cx, cy) = r.Cut.Zone.MapCoordinates(l.Centre);
+            var circle = plot.Add.Circle(cx, cy, l.Radius);
+            circle.LineColor = ink.WithAlpha(0.6); circle.LineWidth = 1; circle.LinePattern = LinePattern.Dotted; circle.FillColor = Colors.Transparent;
+        }
+        if (r.Arcs.Count > 0)
+        {
+            var key = plot.Add.Line(0, double.NaN, 0, double.NaN);
+            key.LineColor = ink; key.LinePattern = LinePattern.Dashed; key.LineWidth = 1.6f; key.LegendText = "traced arc";
+            plot.ShowLegend(Alignment.MiddleLeft);
+        }
     }
 
     private static void AddLogHeatmap(Plot plot, double[,] z, CoordinateRect rect, string name)
