@@ -68,17 +68,9 @@ public static class CommonOptions
     /// <summary>"2K", "2 K", "0.3meV", "1e-3 eV" or a bare number (the model's energy unit) to the model's energy unit.</summary>
     public static double ParseTemperature(string text, EnergyUnit unit, string option = "--temperature")
     {
-        var t = text.Trim();
-        int split = t.Length;
-        while (split > 0 && char.IsLetter(t[split - 1])) split--;
-        var number = t[..split].Trim();
-        var suffix = t[split..];
-        if (!double.TryParse(number, NumberStyles.Float, CultureInfo.InvariantCulture, out var value))
-            throw new UserInputException($"{option} '{text}': not a number");
-        double inUnit;
-        if (suffix.Length == 0) inUnit = value;
-        else if (EnergyUnits.TryParse(suffix, out var given)) inUnit = value * given.Joules() / unit.Joules();
-        else throw new UserInputException($"{option} '{text}': unknown unit '{suffix}' (use K, meV or eV)");
+        var parsed = EnergyText.Parse(text);
+        if (!parsed.Success) throw new UserInputException($"{option} '{text}': {parsed.Error}");
+        double inUnit = parsed.Quantity.In(unit);
         if (!(inUnit >= 0) || !double.IsFinite(inUnit)) throw new UserInputException($"{option} '{text}': temperature must be a finite number >= 0");
         if (inUnit > PhysicalRange.MaxEnergy(unit))
             throw new UserInputException($"{option} '{text}': beyond the physical range (at most {PhysicalRange.MaxEnergyText(unit)})");

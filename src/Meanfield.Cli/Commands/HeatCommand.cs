@@ -1,3 +1,4 @@
+using Meanfield.Units;
 using System.CommandLine;
 using System.Globalization;
 using Meanfield.Heat;
@@ -14,17 +15,17 @@ public static class HeatCommand
     public static Command Build()
     {
         var (input, set, temperature, mesh, output) = (CommonOptions.InputArgument(), CommonOptions.Set(), CommonOptions.Temperature(), CommonOptions.Mesh(), CommonOptions.Out());
-        var tmin = new Option<string>("--tmin") { Description = "Lowest temperature (K; \"0.05\" or \"0.05K\")", Required = true };
-        var tmax = new Option<string>("--tmax") { Description = "Highest temperature (K; \"5\" or \"5K\")", Required = true };
+        var tmin = new Option<string>("--tmin") { Description = "Lowest temperature: 0.05K, 0.004meV, or a bare number in the model's energy unit", Required = true };
+        var tmax = new Option<string>("--tmax") { Description = "Highest temperature: 5K, 0.4meV, or a bare number in the model's energy unit", Required = true };
         var points = new Option<int>("--points") { Description = "Temperatures in the table (the fits add a logarithmic grid of their own)", DefaultValueFactory = _ => 60 };
         var log = new Option<bool>("--log") { Description = "Space the table's temperatures logarithmically (default: linearly)" };
         var window = new Option<string[]>("--fit-window")
         {
-            Description = "Fit window of C/T = gamma + beta T^2 + delta T^4: two temperatures T1 T2 (K), or \"auto\" (the widest window from the lowest T where the fit holds to 0.5 %)",
+            Description = "Fit window of C/T = gamma + beta T^2 + delta T^4: two temperatures T1 T2 (such as 0.1K 2K; bare numbers in the model's energy unit), or \"auto\" (the widest window from the lowest T where the fit holds to 0.5 %)",
             Arity = new ArgumentArity(1, 2), AllowMultipleArgumentsPerToken = true,
         };
         var measured = new Option<string?>("--measured") { Description = "Measured heat capacity (.csv: T_K and C_J_per_mol_K or C_over_T_mJ_per_mol_K2)" };
-        var debye = new Option<double?>("--debye") { Description = "Subtract a Debye phonon term with this Debye temperature (K) from the measured data" };
+        var debye = new Option<string?>("--debye") { Description = "Subtract a Debye phonon term with this Debye temperature (250K; a bare number is in the model's energy unit) from the measured data" };
         var atoms = new Option<double?>("--atoms") { Description = "Atoms per formula unit for --debye" };
         var reference = new Option<string?>("--reference") { Description = "Subtract the measured C of a non-magnetic reference compound (.csv, same format)" };
         var full = new Option<bool>("--full-mean-field") { Description = "Also C = -T d^2F/dT^2 with the saddle point re-solved at each T (slower)" };
@@ -39,18 +40,21 @@ public static class HeatCommand
             if (Path.GetExtension(outPath).ToLowerInvariant() is not (".csv" or ".parquet")) throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name");
             foreach (var f in new[] { parse.GetValue(measured), parse.GetValue(reference) })
                 if (f is not null && !File.Exists(f)) throw new UserInputException($"{f}: file not found");
+            CommonOptions.RefuseOverwrite(parse.GetValue(input)!, [outPath, Path.ChangeExtension(outPath, ".residuals" + Path.GetExtension(outPath)), Path.ChangeExtension(outPath, ".png"),
+                                          Path.ChangeExtension(outPath, ".loglog.png")], parse.GetValue(measured), parse.GetValue(reference));
+            var src = SolutionOptions.Open(parse.GetValue(input)!, parse.GetValue(set), parse.GetValue(temperature), parse.GetValue(mesh), false, o);
+            // Temperatures read by the one grammar: a bare number is in the model's energy unit.
+            var unit = src.Model.Unit;
+            double K(string text, string option) => CommonOptions.ParseTemperature(text, unit, option) * unit.Kelvins();
             var request = new HeatStudyRequest
             {
-                MinTemperatureK = Kelvin(parse.GetValue(tmin)!, "--tmin"), MaxTemperatureK = Kelvin(parse.GetValue(tmax)!, "--tmax"),
-                Points = parse.GetValue(points), Logarithmic = parse.GetValue(log), FitWindowK = Window(parse.GetValue(window)),
-                MeasuredPath = parse.GetValue(measured), DebyeTemperatureK = parse.GetValue(debye), AtomsPerFormulaUnit = parse.GetValue(atoms),
+                MinTemperatureK = K(parse.GetValue(tmin)!, "--tmin"), MaxTemperatureK = K(parse.GetValue(tmax)!, "--tmax"),
+                Points = parse.GetValue(points), Logarithmic = parse.GetValue(log), FitWindowK = Window(parse.GetValue(window), K),
+                MeasuredPath = parse.GetValue(measured), DebyeTemperatureK = parse.GetValue(debye) is { } d ? K(d, "--debye") : null, AtomsPerFormulaUnit = parse.GetValue(atoms),
                 ReferencePath = parse.GetValue(reference), FullMeanField = parse.GetValue(full), MeanFieldPoints = parse.GetValue(mfPoints),
                 DosMesh = parse.GetValue(dosMesh),
             };
             try { request.Validate(); } catch (ArgumentException e) { throw new UserInputException(e.Message); }
-            CommonOptions.RefuseOverwrite(parse.GetValue(input)!, [outPath, Path.ChangeExtension(outPath, ".residuals" + Path.GetExtension(outPath)), Path.ChangeExtension(outPath, ".png"),
-                                          Path.ChangeExtension(outPath, ".loglog.png")], request.MeasuredPath, request.ReferencePath);
-            var src = SolutionOptions.Open(parse.GetValue(input)!, parse.GetValue(set), parse.GetValue(temperature), parse.GetValue(mesh), false, o);
             request = request with { Settings = CommonOptions.Settings(src.Model, parse.GetValue(temperature), parse.GetValue(mesh)) };
             HeatStudyResult result;
             try { result = HeatStudy.Run(src.Model, src.Hamiltonian, src.Mu, request); }
@@ -68,20 +72,11 @@ public static class HeatCommand
         return command;
     }
 
-    private static double Kelvin(string text, string option)
-    {
-        var t = text.Trim();
-        if (t.EndsWith('K') || t.EndsWith('k')) t = t[..^1].TrimEnd();
-        return double.TryParse(t, NumberStyles.Float, CultureInfo.InvariantCulture, out var v) && double.IsFinite(v)
-            ? v : throw new UserInputException($"{option} '{text}': not a temperature in K");
-    }
-
-    private static (double, double)? Window(string[]? w)
+    private static (double, double)? Window(string[]? w, Func<string, string, double> kelvin)
     {
         if (w is not { Length: > 0 } || (w.Length == 1 && w[0] == "auto")) return null;
-        if (w.Length == 2 && double.TryParse(w[0], NumberStyles.Float, CultureInfo.InvariantCulture, out var lo)
-            && double.TryParse(w[1], NumberStyles.Float, CultureInfo.InvariantCulture, out var hi) && hi > lo && lo >= 0)
+        if (w.Length == 2 && kelvin(w[0], "--fit-window") is var lo && kelvin(w[1], "--fit-window") is var hi && hi > lo)
             return (lo, hi);
-        throw new UserInputException($"--fit-window {string.Join(" ", w)}: give two temperatures T1 < T2 in K, or auto");
+        throw new UserInputException($"--fit-window {string.Join(" ", w)}: give two temperatures T1 < T2 (such as 0.1K 2K), or auto");
     }
 }

@@ -346,13 +346,13 @@ public static class ModelFile
     /// <summary>"2 K", "0.5 meV", "1e-3 eV" or a bare number in the model's energy unit, converted to that unit.</summary>
     private static double ParseTemperature(string s, EnergyUnit unit, SourceLocation where, string field)
     {
-        var parts = s.Trim().Split(' ', StringSplitOptions.RemoveEmptyEntries);
-        if (parts.Length is 0 or > 2 || !double.TryParse(parts[0], NumberStyles.Float, CultureInfo.InvariantCulture, out double value) || !double.IsFinite(value))
-            throw new ModelError(where, field, $"cannot read temperature \"{s}\": write a number and an optional unit, for example \"2 K\"");
-        if (parts.Length == 1) return value;
-        if (!EnergyUnits.TryParse(parts[1], out var given))
-            throw new ModelError(where, field, $"unknown unit '{parts[1]}' in temperature \"{s}\": use K, meV or eV",
-                NameSuggestion.Closest(parts[1], ["K", "meV", "eV"]));
-        return value * given.Joules() / unit.Joules();
+        var parsed = EnergyText.Parse(s);
+        if (!parsed.Success)
+        {
+            string suffix = new(s.Trim().Reverse().TakeWhile(char.IsLetter).Reverse().ToArray());
+            throw new ModelError(where, field, $"cannot read temperature \"{s}\": {parsed.Error}",
+                suffix.Length > 0 ? NameSuggestion.Closest(suffix, ["K", "meV", "eV"]) : null);
+        }
+        return parsed.Quantity.In(unit);
     }
 }

@@ -229,7 +229,7 @@ public static class ScanFileReader
             {
                 if (!TemperatureText.TryParseKelvin(s.Value ?? "", out t, out string error)) throw Error(kv, "temperature", error);
             }
-            else t = Number(kv, "temperature");
+            else throw Error(kv, "temperature", $"give the unit as text, for example temperature = \"{Number(kv, "temperature").ToString(CultureInfo.InvariantCulture)} K\" (a scan file is not tied to one model's energy unit)");
             if (!(t >= 0) || double.IsInfinity(t)) throw Error(kv, "temperature", "must be a finite temperature >= 0");
             if (t > MaxKelvin) throw Error(kv, "temperature", $"{t:G6} K is beyond the physical range (at most {MaxKelvin:G3} K, 1 keV)");
             return t;
@@ -278,6 +278,7 @@ public static class ScanFileReader
                 if (!TemperatureText.KelvinPerUnit(unit, out kelvinPerUnit)) throw Error(unitKv!, "axis.unit", $"unknown unit '{unit}' (use K, meV or eV)");
             }
             if (isT && free) throw Error(table, "axis.free", "the temperature axis is not a free variable");
+            if (isT && unit is null) throw Error(table, "axis.unit", "a temperature axis states the unit of its values: unit = \"K\" (or \"meV\", \"eV\"); a scan file is not tied to one model's energy unit");
 
             if (values is not null)
             {

@@ -3,24 +3,20 @@ using Meanfield.Units;
 
 namespace Meanfield.Scans;
 
-/// <summary>Reads a temperature written as "2 K", "0.3 meV" or "1e-4 eV" (k_B T) into kelvin.</summary>
+/// <summary>Reads a scan file's temperature, "2 K", "2K", "0.3 meV" or "1e-4 eV" (k_B T), into kelvin.</summary>
 public static class TemperatureText
 {
+    /// <summary>
+    /// A scan file's temperature: <see cref="EnergyText"/> with the unit required (a scan file is not tied to one
+    /// model's energy unit, so a bare number would be ambiguous).
+    /// </summary>
     public static bool TryParseKelvin(string text, out double kelvin, out string error)
     {
         kelvin = double.NaN;
-        var parts = text.Trim().Split((char[]?)null, 2, StringSplitOptions.RemoveEmptyEntries);
-        if (parts.Length != 2 || !double.TryParse(parts[0], NumberStyles.Float, CultureInfo.InvariantCulture, out double value))
-        {
-            error = $"'{text}' is not a temperature like \"2 K\" or \"0.3 meV\"";
-            return false;
-        }
-        if (!KelvinPerUnit(parts[1], out double factor))
-        {
-            error = $"unknown temperature unit '{parts[1]}' (use K, meV or eV)";
-            return false;
-        }
-        kelvin = value * factor;
+        var parsed = EnergyText.Parse(text);
+        if (!parsed.Success) { error = $"'{text}': {parsed.Error}"; return false; }
+        if (parsed.Quantity.Kelvin is not { } k) { error = $"'{text}': give the unit, for example \"{text.Trim()} K\" (a scan file is not tied to one model's energy unit)"; return false; }
+        kelvin = k;
         error = "";
         return true;
     }

@@ -25,7 +25,7 @@ public class HeatCommandTests : IDisposable
         var csv = Path.Combine(_dir, "bad.csv");
         File.WriteAllText(csv, "# comment\nT_K,C_J_per_mol_K\n1,0.1\n2,abc\n3,0.3\n");
         var outFile = Path.Combine(_dir, "heat.csv");
-        var (code, _, err) = Run(Model("heavy-metal-cubic.toml"), "--tmin", "1", "--tmax", "5", "--measured", csv, "--out", outFile);
+        var (code, _, err) = Run(Model("heavy-metal-cubic.toml"), "--tmin", "1K", "--tmax", "5K", "--measured", csv, "--out", outFile);
         Assert.Equal(ExitCodes.BadInput, code);
         Assert.Contains("bad.csv:4:", err);
         Assert.Equal([csv], Directory.GetFiles(_dir));
@@ -35,8 +35,8 @@ public class HeatCommandTests : IDisposable
     public void FitWindowWithTooFewPointsExitsTwoSayingHowManyAreNeeded()
     {
         var outFile = Path.Combine(_dir, "heat.csv");
-        var (code, _, err) = Run(Model("heavy-metal-cubic.toml"), "--tmin", "1", "--tmax", "5", "--points", "5",
-                                 "--dos-mesh", "8", "--fit-window", "1", "1.01", "--out", outFile);
+        var (code, _, err) = Run(Model("heavy-metal-cubic.toml"), "--tmin", "1K", "--tmax", "5K", "--points", "5",
+                                 "--dos-mesh", "8", "--fit-window", "1K", "1.01K", "--out", outFile);
         Assert.Equal(ExitCodes.BadInput, code);
         Assert.Contains("at least 3 points", err);
         Assert.Contains("holds 1", err); // only T = 1 K of the table and of the fits' logarithmic grid
@@ -47,9 +47,9 @@ public class HeatCommandTests : IDisposable
     public void WritesTableResidualsAndPictures()
     {
         var outFile = Path.Combine(_dir, "heat.csv");
-        var (code, stdout, err) = Run(Model("heavy-metal-cubic.toml"), "--tmin", "0.5", "--tmax", "10", "--points", "12", "--log",
+        var (code, stdout, err) = Run(Model("heavy-metal-cubic.toml"), "--tmin", "0.5K", "--tmax", "10K", "--points", "12", "--log",
                                       "--dos-mesh", "12", "--measured", Path.Combine(ModelText.RepositoryRoot(), "models", "measured", "demo-heavy-metal-heat.csv"),
-                                      "--debye", "250", "--atoms", "4", "--out", outFile);
+                                      "--debye", "250K", "--atoms", "4", "--out", outFile);
         Assert.True(code == 0, err);
         Assert.Contains("gamma =", stdout);
         var lines = File.ReadAllLines(outFile);

@@ -27,7 +27,7 @@ public sealed class RealSolverScanTests : IDisposable
         return ScanFileReader.Load(path, ModelFile.Load(model).Parameters.Select(p => p.Name).ToList());
     }
 
-    private const string TV3x3 = "[[axis]]\nname = \"T\"\nvalues = [5, 10, 20]\n[[axis]]\nname = \"V\"\nvalues = [150, 175, 200]\n";
+    private const string TV3x3 = "[[axis]]\nname = \"T\"\nunit = \"K\"\nvalues = [5, 10, 20]\n[[axis]]\nname = \"V\"\nvalues = [150, 175, 200]\n";
 
     [Fact]
     public async Task Tiny_real_scan_writes_converged_Kondo_insulator_rows_read_back_by_ParquetNet()
@@ -68,7 +68,7 @@ public sealed class RealSolverScanTests : IDisposable
         // Above T_K^MF only the decoupled (r = 0) solution exists (Read & Newns 1983; Hewson ch. 7): along T at fixed V
         // the scan's last coherent and first decoupled temperatures must bracket T_K^MF found by continuation.
         var temperatures = Enumerable.Range(0, 12).Select(i => 20 * Math.Pow(2, i / 2.0)).ToArray(); // 20 K .. 905 K
-        string axes = "[[axis]]\nname = \"V\"\nvalues = [150, 180]\n[[axis]]\nname = \"T\"\nvalues = ["
+        string axes = "[[axis]]\nname = \"V\"\nvalues = [150, 180]\n[[axis]]\nname = \"T\"\nunit = \"K\"\nvalues = ["
                       + string.Join(", ", temperatures.Select(t => t.ToString("R", System.Globalization.CultureInfo.InvariantCulture))) + "]\n";
         var scan = Scan(_dir, axes, mesh: 6);
         var file = Path.Combine(_dir, "b.parquet");

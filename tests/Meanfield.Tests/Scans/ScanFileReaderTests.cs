@@ -149,7 +149,7 @@ public sealed class ScanFileReaderTests : IDisposable
     public void Temperature_must_be_given_once()
     {
         Assert.Equal("temperature", Fails(Good.Replace("temperature = \"2 K\"\n", "")).Field);
-        var both = Good.Replace("name = \"V\"", "name = \"T\"");
+        var both = Good.Replace("name = \"V\"", "name = \"T\"\nunit = \"K\"");
         Assert.Equal(2, Fails(both).Line);
     }
 
@@ -163,5 +163,16 @@ public sealed class ScanFileReaderTests : IDisposable
         var e = Fails(Good.Replace("lso = 20", "lsoo = 20"), parameters);
         Assert.Equal("lsoo", e.Field);
         Assert.Contains("did you mean 'lso'", e.Message);
+    }
+
+    [Fact]
+    public void Temperatures_in_a_scan_file_carry_their_unit()
+    {
+        // A scan file is not tied to one model's energy unit, so a bare temperature would be ambiguous.
+        Assert.Equal("temperature", Fails(Good.Replace("temperature = \"2 K\"", "temperature = 2")).Field);
+        Assert.Equal("temperature", Fails(Good.Replace("temperature = \"2 K\"", "temperature = \"2\"")).Field);
+        Assert.Equal(2.0, Load(Good.Replace("temperature = \"2 K\"", "temperature = \"2K\"")).TemperatureK!.Value, 12);
+        var axis = Good.Replace("temperature = \"2 K\"\n", "").Replace("name = \"V\"", "name = \"T\"");
+        Assert.Equal("axis.unit", Fails(axis).Field);
     }
 }
