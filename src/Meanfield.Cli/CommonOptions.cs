@@ -26,6 +26,8 @@ public static class CommonOptions
 
     public static Option<int?> Mesh() => new("--mesh") { Description = "k-mesh divisions per reciprocal axis (default: model's [solver] or 16)" };
 
+    public static Option<double?> Tolerance() => new("--tolerance") { Description = "Convergence tolerance of the saddle point, relative to the model's largest energy (default: model's [solver] or 1e-10)" };
+    public static Option<int?> MaxIterations() => new("--max-iterations") { Description = "Most saddle-point iterations (default: model's [solver] or 100)" };
     public static Option<bool> Bare() => new("--bare") { Description = "Use the bare model: f levels and hybridization unrenormalized" };
 
     public static Option<string> Out(bool required = true) => new("--out", "-o") { Description = "Output file", Required = required };
@@ -79,8 +81,13 @@ public static class CommonOptions
 
     /// <summary>Solver settings: command-line values first, then the model's [solver] table, then defaults.</summary>
     /// <param name="temperatureOption">The option that gave <paramref name="temperature"/>, for messages.</param>
-    public static SolverSettings Settings(BoundModel model, string? temperature, int? mesh, string temperatureOption = "--temperature")
+    /// <param name="tolerance">--tolerance, or null for the model's [solver] value or the default.</param>
+    /// <param name="maxIterations">--max-iterations, or null likewise.</param>
+    public static SolverSettings Settings(BoundModel model, string? temperature, int? mesh, string temperatureOption = "--temperature",
+                                          double? tolerance = null, int? maxIterations = null)
     {
+        if (tolerance is { } tol && !(tol > 0 && tol < 1)) throw new UserInputException($"--tolerance {tol}: use a positive number below 1, such as 1e-10");
+        if (maxIterations is < 1 or > 100000) throw new UserInputException($"--max-iterations {maxIterations}: use 1..100000");
         if (mesh is < PhysicalRange.MinMesh or > PhysicalRange.MaxMesh)
             throw new UserInputException($"--mesh {mesh}: use {PhysicalRange.MinMesh}..{PhysicalRange.MaxMesh} divisions");
         var hints = model.Solver;
@@ -89,8 +96,8 @@ public static class CommonOptions
             Temperature = temperature is null ? hints?.Temperature ?? 0 : ParseTemperature(temperature, model.Unit, temperatureOption),
             Mesh = mesh ?? hints?.Mesh ?? 16,
             Shifted = hints?.Shifted ?? true,
-            Tolerance = hints?.Tolerance ?? 1e-10,
-            MaxIterations = hints?.MaxIterations ?? 100,
+            Tolerance = tolerance ?? hints?.Tolerance ?? 1e-10,
+            MaxIterations = maxIterations ?? hints?.MaxIterations ?? 100,
             Symmetry = hints?.Symmetry is { } sym ? Symmetry.SymmetryRequest.Parse(sym) : Symmetry.SymmetryRequest.Auto,
         };
         try { settings.Validate(); }

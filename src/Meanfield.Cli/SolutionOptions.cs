@@ -15,21 +15,26 @@ public sealed class SolutionOptions
     public Option<string?> Temperature { get; } = CommonOptions.Temperature();
     public Option<int?> Mesh { get; } = CommonOptions.Mesh();
     public Option<bool> Bare { get; } = CommonOptions.Bare();
+    public Option<double?> Tolerance { get; } = CommonOptions.Tolerance();
+    public Option<int?> MaxIterations { get; } = CommonOptions.MaxIterations();
 
     public void AddTo(Command command)
     {
         command.Add(Input); command.Add(Set); command.Add(Temperature); command.Add(Mesh); command.Add(Bare);
+        command.Add(Tolerance); command.Add(MaxIterations);
     }
 
     public Solution Resolve(ParseResult parse, TextWriter log) =>
-        Open(parse.GetValue(Input)!, parse.GetValue(Set), parse.GetValue(Temperature), parse.GetValue(Mesh), parse.GetValue(Bare), log);
+        Open(parse.GetValue(Input)!, parse.GetValue(Set), parse.GetValue(Temperature), parse.GetValue(Mesh), parse.GetValue(Bare), log,
+             parse.GetValue(Tolerance), parse.GetValue(MaxIterations));
 
     /// <summary>
     /// A solution file (.json) as written; an exported one-body model (.json, .csv, .parquet from `export`) as it
     /// stands; a model file (.toml) solved on the fly (its one-line summary goes to <paramref name="log"/>), or taken
     /// bare with <paramref name="bare"/> or when it has no correlated shell.
     /// </summary>
-    public static Solution Open(string input, string[]? sets, string? temperature, int? mesh, bool bare, TextWriter log)
+    public static Solution Open(string input, string[]? sets, string? temperature, int? mesh, bool bare, TextWriter log,
+                                double? tolerance = null, int? maxIterations = null)
     {
         switch (SolutionInput.Recognise(input))
         {
@@ -48,7 +53,7 @@ public sealed class SolutionOptions
             if (model.IsMomentumFree) throw new UserInputException($"{input}: a momentum-free lattice has no bare k-resolved bands");
             return Solution.Bare(model, mesh ?? model.Solver?.Mesh ?? 16);
         }
-        var settings = CommonOptions.Settings(model, temperature, mesh);
+        var settings = CommonOptions.Settings(model, temperature, mesh, "--temperature", tolerance, maxIterations);
         var sp = new SaddlePointSolver(model, settings).Solve();
         log.WriteLine(Summary.SolutionLine(sp, model));
         if (!sp.Converged) throw new NotConvergedException(sp);

@@ -17,13 +17,14 @@ public static class DosCommand
         var set = CommonOptions.Set();
         var temperature = CommonOptions.Temperature();
         var output = CommonOptions.Out();
-        var mesh = new Option<int>("--mesh") { Description = "k-mesh divisions per reciprocal axis for the DOS (Gamma-centred; a model is solved on its own [solver] mesh)", DefaultValueFactory = _ => 24 };
+        var mesh = new Option<int>("--dos-mesh") { Description = "k-mesh divisions per reciprocal axis of the DOS tetrahedra (Gamma-centred)", DefaultValueFactory = _ => 24 };
+        var solverMesh = CommonOptions.Mesh();
         var window = new Option<double[]>("--window") { Description = "Energy window E1 E2 (model energy unit; default: the band range)", Arity = new ArgumentArity(2, 2), AllowMultipleArgumentsPerToken = true };
         var step = new Option<double?>("--step") { Description = "Energy step (default: bandwidth / 2000)" };
         var gaussian = new Option<double?>("--gaussian") { Description = "Gaussian broadening SIGMA (energy unit) instead of linear tetrahedra (smears the E^2 law near nodes)" };
         var bare = CommonOptions.Bare();
         var command = new Command("dos", "Density of states (tetrahedron method): table (CSV or Parquet by extension) and a picture (PNG next to it)")
-            { input, set, temperature, output, mesh, window, step, gaussian, bare };
+            { input, set, temperature, solverMesh, output, mesh, window, step, gaussian, bare };
         command.SetAction(parse =>
         {
             var o = parse.InvocationConfiguration.Output;
@@ -33,7 +34,7 @@ public static class DosCommand
             if (ext is not (".csv" or ".parquet")) throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name");
             CommonOptions.RefuseOverwrite(parse.GetValue(input)!, [outPath, Path.ChangeExtension(outPath, ".png")]);
             int n = parse.GetValue(mesh);
-            if (n < 2 || n > 200) throw new UserInputException($"--mesh {n}: use 2..200 divisions");
+            if (n < 2 || n > 200) throw new UserInputException($"--dos-mesh {n}: use 2..200 divisions");
             var win = parse.GetValue(window) is { Length: 2 } given ? given : null;
             if (win is { Length: 2 } && !(win[1] > win[0])) throw new UserInputException($"--window {win[0]} {win[1]}: E2 must exceed E1");
             var dE = parse.GetValue(step);
@@ -41,7 +42,7 @@ public static class DosCommand
             var sigma = parse.GetValue(gaussian);
             if (sigma is { } g0 && !(g0 > 0)) throw new UserInputException($"--gaussian {g0}: must be positive");
 
-            var src = SolutionOptions.Open(parse.GetValue(input)!, parse.GetValue(set), parse.GetValue(temperature), null, parse.GetValue(bare), o);
+            var src = SolutionOptions.Open(parse.GetValue(input)!, parse.GetValue(set), parse.GetValue(temperature), parse.GetValue(solverMesh), parse.GetValue(bare), o);
             var model = src.Model;
             if (model.IsMomentumFree) throw new UserInputException($"{model.SourcePath}: a momentum-free lattice has an analytic DOS; `dos` needs a lattice with momentum");
             var kmesh = new KMesh(model.Lattice, n);
@@ -57,7 +58,7 @@ public static class DosCommand
             if (sigma is null && h < spacing)
             {
                 int suggest = (int)Math.Ceiling(Math.Pow(width / (tetra.Spectrum.Bands * h), 1.0 / model.Lattice.Dimension));
-                err.WriteLine($"warning: the step {h:G4} is finer than the mean level spacing {spacing:G4} of mesh {kmesh}; fine structure below it is interpolation. Try --mesh {suggest}.");
+                err.WriteLine($"warning: the step {h:G4} is finer than the mean level spacing {spacing:G4} of mesh {kmesh}; fine structure below it is interpolation. Try --dos-mesh {suggest}.");
             }
             var options = new DosOptions
             {

@@ -16,7 +16,8 @@ public static class SolveCommand
         var temperature = CommonOptions.Temperature();
         var mesh = CommonOptions.Mesh();
         var output = CommonOptions.Out();
-        var command = new Command("solve", "Solve the auxiliary-boson saddle point and write the solution as JSON") { model, set, temperature, mesh, output };
+        var (tolerance, iterations) = (CommonOptions.Tolerance(), CommonOptions.MaxIterations());
+        var command = new Command("solve", "Solve the auxiliary-boson saddle point and write the solution as JSON") { model, set, temperature, mesh, tolerance, iterations, output };
         command.SetAction(parse =>
         {
             var o = parse.InvocationConfiguration.Output;
@@ -24,7 +25,7 @@ public static class SolveCommand
             OutputGuard.Check(path, [parse.GetValue(model)]);
             var bound = CommonOptions.LoadModel(parse.GetValue(model)!, CommonOptions.ParseSets(parse.GetValue(set)));
             if (bound.Shells.Count == 0) throw new UserInputException(SolutionInput.NothingToSolve(bound, SolutionInput.Recognise(bound.SourcePath) == InputKind.ExportedModel ? Output.OneBodyModelFiles.Load(bound.SourcePath).Header : null));
-            var settings = CommonOptions.Settings(bound, parse.GetValue(temperature), parse.GetValue(mesh));
+            var settings = CommonOptions.Settings(bound, parse.GetValue(temperature), parse.GetValue(mesh), "--temperature", parse.GetValue(tolerance), parse.GetValue(iterations));
             var sp = new SaddlePointSolver(bound, settings).Solve();
             if (!sp.Converged)
             {

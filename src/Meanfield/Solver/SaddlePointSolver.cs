@@ -394,7 +394,7 @@ public sealed partial class SaddlePointSolver
                 notes.Add("T = 0 with states at the Fermi level on this mesh: occupations jump between iterations. " +
                           "Use a small temperature (for example --temperature 1K) or a shifted mesh with an odd number of divisions.");
             else
-                notes.Add("try more iterations, a starting point from a neighbouring solution, or a small temperature.");
+                notes.Add("try more iterations (--max-iterations, or [solver] max_iterations), a looser --tolerance, a starting point from a neighbouring solution, or a small temperature.");
         }
         else if (decoupled is not null && decoupled.FreeEnergy < kondo.FreeEnergy)
         {

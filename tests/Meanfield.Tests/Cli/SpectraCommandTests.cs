@@ -25,7 +25,7 @@ public sealed class SpectraCommandTests
     {
         using var cli = new CliHarness();
         var csv = cli.PathOf("dos.csv");
-        Assert.Equal(ExitCodes.Success, cli.Run("dos", CliHarness.ShippedModel("kondo-insulator-sc.toml"), "--mesh", "12", "--out", csv));
+        Assert.Equal(ExitCodes.Success, cli.Run("dos", CliHarness.ShippedModel("kondo-insulator-sc.toml"), "--dos-mesh", "12", "--out", csv));
         Assert.True(File.Exists(cli.PathOf("dos.png")));
         var (header, cols, rows) = ReadCsv(csv);
         Assert.StartsWith("#", header);
@@ -57,9 +57,9 @@ public sealed class SpectraCommandTests
     {
         using var cli = new CliHarness();
         var pq = cli.PathOf("dos.parquet");
-        Assert.Equal(ExitCodes.Success, cli.Run("dos", CliHarness.ShippedModel("kondo-insulator-sc.toml"), "--bare", "--mesh", "4",
+        Assert.Equal(ExitCodes.Success, cli.Run("dos", CliHarness.ShippedModel("kondo-insulator-sc.toml"), "--bare", "--dos-mesh", "4",
             "--window", "-700", "700", "--step", "0.5", "--out", pq));
-        Assert.Contains("--mesh", cli.Err);
+        Assert.Contains("--dos-mesh", cli.Err);
         await using var stream = File.OpenRead(pq);
         await using var reader = await Parquet.ParquetReader.CreateAsync(stream);
         Assert.Equal("meV", reader.CustomMetadata["energy_unit"]);
