@@ -25,7 +25,8 @@ public static class Runner
                 for (var c = parse.CommandResult; c is not null; c = c.Parent as System.CommandLine.Parsing.CommandResult)
                     if (c.Command is not RootCommand) names.Insert(0, c.Command.Name);
                 error.WriteLine($"see `meanfield {string.Join(" ", names)}{(names.Count > 0 ? " " : "")}--help` for the options");
-                return ExitCodes.Usage;
+                // A value the parser could not convert is bad input (2); an unknown option or a missing argument is usage (1).
+                return parse.Errors.All(e => e.Message.StartsWith("Cannot parse argument", StringComparison.Ordinal)) ? ExitCodes.BadInput : ExitCodes.Usage;
             }
             int code = parse.Invoke(config);
             // The usage lines start with the name the runtime gives the root (the assembly or test host): say `meanfield`.
