@@ -94,6 +94,28 @@ public static class PhaseClassifier
         return new(phase, $"{label.Reason}; Z2 {x} ({z2.Reason})");
     }
 
+    /// <summary>
+    /// A phase in words for pictures and reports ("strong topological Kondo insulator"), from its file form; text that
+    /// is not a phase name is returned as it is.
+    /// </summary>
+    public static string Readable(string fileName) => Enum.GetValues<Phase>().FirstOrDefault(p => Name(p) == fileName, (Phase)(-1)) switch
+    {
+        Phase.KondoInsulator => "Kondo insulator (class not settled)",
+        Phase.WeylSemimetal => "Weyl semimetal",
+        Phase.DiracSemimetal => "Dirac semimetal",
+        Phase.WeylSemimetalWithPockets => "Weyl semimetal with pockets",
+        Phase.DiracSemimetalWithPockets => "Dirac semimetal with pockets",
+        Phase.TrivialKondoInsulator => "trivial Kondo insulator",
+        Phase.WeakTopologicalKondoInsulator => "weak topological Kondo insulator",
+        Phase.StrongTopologicalKondoInsulator => "strong topological Kondo insulator",
+        Phase.TopologicalKondoInsulator => "topological Kondo insulator (2D)",
+        Phase.Decoupled => "decoupled local moments",
+        Phase.NodalLine => "nodal line",
+        Phase.HeavyMetal => "heavy Fermi liquid",
+        Phase.Unresolved => "unresolved (refine)",
+        _ => fileName,
+    };
+
     /// <summary>File form of a phase: lower-case words joined by '-'.</summary>
     public static string Name(Phase phase) => phase switch
     {

@@ -13,11 +13,10 @@ public static class PhaseMap
     public static void Save(string parquetFile, string xAxis, string yAxis, string colorBy, string pngPath, PhaseMapOptions? options = null)
     {
         var table = ScanParquet.ReadAsync(parquetFile).GetAwaiter().GetResult();
-        var plot = Build(table, xAxis, yAxis, colorBy, options ?? new PhaseMapOptions());
         var o = options ?? new PhaseMapOptions();
-        string tmp = pngPath + ".tmp.png";
-        plot.SavePng(tmp, o.Width, o.Height);
-        File.Move(tmp, pngPath, overwrite: true);
+        var plot = Build(table, xAxis, yAxis, colorBy, o);
+        // Written as the extension says (.png raster, .svg vector), atomically.
+        Output.PlotStyle.Save(plot, pngPath, o.Width, o.Height);
     }
 
     public static Plot Build(ScanTable table, string xAxis, string yAxis, string colorBy, PhaseMapOptions options)
@@ -46,7 +45,8 @@ public static class PhaseMap
                 var c = palette.GetColor(labels.IndexOf(color.Value(row) as string ?? "(none)"));
                 Cell(plot, xs, ys, i, j, c);
             }
-            legend.AddRange(labels.Select((l, k) => new LegendItem { LabelText = l, FillColor = palette.GetColor(k) }));
+            bool phases = colorBy == "phase";
+            legend.AddRange(labels.Select((l, k) => new LegendItem { LabelText = phases ? Analysis.PhaseClassifier.Readable(l) : l, FillColor = palette.GetColor(k) }));
         }
         else
         {
@@ -73,12 +73,51 @@ public static class PhaseMap
 
         if (options.ContourColumn is { } contourName) AddContours(plot, table, Column(table, contourName), rows, xs, ys, options.ContourLevels);
 
-        if (legend.Count > 0) plot.ShowLegend(legend, Alignment.UpperRight);
-        plot.XLabel(xLog ? $"log10({xa.Name})" : xa.Name);
-        plot.YLabel(yLog ? $"log10({ya.Name})" : ya.Name);
-        plot.Title(options.Title ?? $"{colorBy} over {xa.Name} and {ya.Name}");
+        // The legend sits outside the data, to the right.
+        if (legend.Count > 0) { plot.Legend.ManualItems.AddRange(legend); plot.ShowLegend(Edge.Right); }
+        string unit = table.Metadata.GetValueOrDefault(ScanMetadata.EnergyUnit) ?? "";
+        plot.XLabel(AxisLabel(xa, grid, unit, xLog));
+        plot.YLabel(AxisLabel(ya, grid, unit, yLog));
+        plot.Title((options.Title ?? (colorBy == "phase" ? "Phase map" : colorBy)) + Subtitle(table, grid, unit));
         plot.Axes.SetLimits(xs.Edges[0], xs.Edges[^1], ys.Edges[0], ys.Edges[^1]);
+        // Ticks on the grid values themselves (inside the data range), when there are few enough to read.
+        if (xs.Values.Length <= MaxLabelledTicks) plot.Axes.Bottom.TickGenerator = Ticks(xs.Values);
+        if (ys.Values.Length <= MaxLabelledTicks) plot.Axes.Left.TickGenerator = Ticks(ys.Values);
         return plot;
+    }
+
+    // "V (meV)" for a model parameter, "T (K)" for temperature, "ratio (m = ratio * lso)" for a free variable.
+    private static string AxisLabel(ScanAxis axis, ScanGrid grid, string energyUnit, bool log)
+    {
+        var tie = grid.Ties.FirstOrDefault(t => System.Text.RegularExpressions.Regex.IsMatch(t.Value, $@"\b{axis.Name}\b"));
+        var ratio = tie.Key is null ? null : System.Text.RegularExpressions.Regex.Match(tie.Value, $@"^\s*{axis.Name}\s*\*\s*(\w+)\s*$");
+        string name = axis.IsTemperature ? $"T ({axis.Unit})"
+            : axis.IsFreeVariable ? ratio is { Success: true } ? $"{tie.Key} / {ratio.Groups[1].Value}"
+                                  : tie.Key is not null ? $"{axis.Name} ({tie.Key} = {tie.Value})" : axis.Name
+            : energyUnit.Length > 0 ? $"{axis.Name} ({energyUnit})" : axis.Name;
+        return log ? $"log10 {name}" : name;
+    }
+
+    // "\nOrvathite, T = 2 K, mesh 10" from the model and scan texts the file carries.
+    private static string Subtitle(ScanTable table, ScanGrid grid, string energyUnit)
+    {
+        var parts = new List<string>();
+        var model = System.Text.RegularExpressions.Regex.Match(table.Metadata.GetValueOrDefault(ScanMetadata.ModelText) ?? "", @"(?m)^\s*name\s*=\s*""([^""]+)""");
+        if (model.Success) parts.Add(model.Groups[1].Value);
+        if (grid.FixedTemperatureK is { } t) parts.Add(FormattableString.Invariant($"T = {t:G4} K"));
+        var mesh = System.Text.RegularExpressions.Regex.Match(table.Metadata.GetValueOrDefault(ScanMetadata.ScanText) ?? "", @"(?m)^\s*mesh\s*=\s*(\d+)");
+        if (mesh.Success) parts.Add($"mesh {mesh.Groups[1].Value}");
+        return parts.Count > 0 ? "\n" + string.Join(", ", parts) : "";
+    }
+
+    /// <summary>Axes with at most this many grid values get one tick per value.</summary>
+    private const int MaxLabelledTicks = 14;
+
+    private static ScottPlot.TickGenerators.NumericManual Ticks(double[] values)
+    {
+        var t = new ScottPlot.TickGenerators.NumericManual();
+        foreach (var v in values) t.AddMajor(v, v.ToString("G4", CultureInfo.InvariantCulture));
+        return t;
     }
 
     private sealed record AxisCoords(double[] Values, double[] Edges);

@@ -32,4 +32,35 @@ public sealed class PhaseMapTests : IDisposable
         var e = Assert.Throws<ScanError>(() => PhaseMap.Save(data, "V", "ratio", "phse", Path.Combine(_dir, "x.png")));
         Assert.Contains("did you mean 'phase'", e.Message);
     }
+
+    // SVG is XML with an <svg> root element (W3C SVG 1.1, sec. 5.1): a vector file, not PNG bytes under that name.
+    [Fact]
+    public async Task An_svg_name_gets_a_vector_file_and_an_unknown_extension_is_refused()
+    {
+        string data = Path.Combine(_dir, "scan.parquet");
+        await ScanRunner.RunAsync(ScanTestData.Grid(3, 3), new FakeSolver().Solve, new ScanOutput(data, ScanTestData.Provenance()),
+                                  new ScanRunOptions(), null, CancellationToken.None);
+        string svg = Path.Combine(_dir, "m.svg");
+        PhaseMap.Save(data, "V", "ratio", "phase", svg);
+        string text = File.ReadAllText(svg);
+        Assert.Contains("<svg", text);
+        Assert.DoesNotContain("PNG", text[..Math.Min(200, text.Length)]);
+        Assert.Contains("Weyl semimetal", text); // readable phase names in the legend, not file forms
+        string pdf = Path.Combine(_dir, "m.pdf");
+        Assert.ThrowsAny<ArgumentException>(() => PhaseMap.Save(data, "V", "ratio", "phase", pdf));
+        Assert.False(File.Exists(pdf));
+    }
+
+    [Fact]
+    public void Every_phase_has_a_readable_name()
+    {
+        foreach (var p in Enum.GetValues<Meanfield.Analysis.Phase>())
+        {
+            string file = Meanfield.Analysis.PhaseClassifier.Name(p), words = Meanfield.Analysis.PhaseClassifier.Readable(file);
+            Assert.NotEqual(file, words);
+            Assert.DoesNotContain("-", words);
+        }
+        Assert.Equal(Enum.GetValues<Meanfield.Analysis.Phase>().Length,
+                     Enum.GetValues<Meanfield.Analysis.Phase>().Select(p => Meanfield.Analysis.PhaseClassifier.Readable(Meanfield.Analysis.PhaseClassifier.Name(p))).Distinct().Count());
+    }
 }
