@@ -79,6 +79,14 @@ public static class CommonOptions
         return inUnit;
     }
 
+    /// <summary>An energy option ("-20", "-20meV", "0.02 eV"; a bare number in the model's unit) in the model's unit.</summary>
+    public static double ParseEnergy(string text, EnergyUnit unit, string option)
+    {
+        var parsed = EnergyText.Parse(text);
+        if (!parsed.Success) throw new UserInputException($"{option} '{text}': {parsed.Error}");
+        return parsed.Quantity.In(unit);
+    }
+
     /// <summary>Solver settings: command-line values first, then the model's [solver] table, then defaults.</summary>
     /// <param name="temperatureOption">The option that gave <paramref name="temperature"/>, for messages.</param>
     /// <param name="tolerance">--tolerance, or null for the model's [solver] value or the default.</param>

@@ -48,7 +48,7 @@ public sealed class BandPlotTests : IDisposable
         var withText = Path.Combine(_dir, "bands.png");
         var without = Path.Combine(_dir, "bare.png");
         BandPlot.Save(b, withText, "Invented compound: bare bands", chemicalPotential: -20);
-        PlotStyle.Save(BandPlot.Build(b, "", labels: false), without);
+        PlotStyle.Save(BandPlot.Build(b, "", chemicalPotential: -20, labels: false), without); // same window, same lines
         using (var bmp = SKBitmap.Decode(withText)) { Assert.Equal(PlotStyle.Width, bmp.Width); Assert.Equal(PlotStyle.Height, bmp.Height); }
         int text = DarkPixels(withText), bare = DarkPixels(without);
         // Title, axis labels and tick labels add well over a thousand dark pixels at this size.
@@ -80,4 +80,22 @@ public sealed class BandPlotTests : IDisposable
             horizontalLines: [0]);
         Assert.True(new FileInfo(path).Length > 5_000);
     }
+
+    /// <summary>
+    /// The default window follows the band data: the pair of bands at a whole filling sets it, so scaling every energy
+    /// by 1000 scales the window by 1000 (common practice: the picture of a model must not depend on its unit).
+    /// </summary>
+    [Fact]
+    public void DefaultWindowScalesWithTheBands()
+    {
+        var b = Bands();
+        var w1 = BandPlot.HeavyWindow(b, -20, 0)!.Value;
+        Assert.True(w1.Lo < 0 && w1.Hi > 0, $"window {w1} must hold mu");
+        var scaled = BandStructure.Compute(new BlochHamiltonian(TightBindingModels.HybridizedCubic(4.0, 25000, 12000, 7000)),
+                                           BandPath.Default(Lattice.Create(LatticeKind.SimpleCubic, 4.0)).Sample(120));
+        var w2 = BandPlot.HeavyWindow(scaled, -20000, 0)!.Value;
+        Assert.Equal(1000 * w1.Lo, w2.Lo, 6);
+        Assert.Equal(1000 * w1.Hi, w2.Hi, 6);
+    }
+
 }
