@@ -46,9 +46,19 @@ public static class PlotStyle
         plot.YLabel(yLabel, LabelFontSize);
         plot.Axes.Bottom.TickLabelStyle.FontSize = TickFontSize;
         plot.Axes.Left.TickLabelStyle.FontSize = TickFontSize;
+        plot.Axes.Bottom.TickGenerator = PlainTicks();
+        plot.Axes.Left.TickGenerator = PlainTicks();
         plot.HideGrid();
         return plot;
     }
+
+    /// <summary>Automatic numeric ticks written without thousands separators (1100, not 1,100), invariant culture.</summary>
+    public static ScottPlot.TickGenerators.NumericAutomatic PlainTicks() => new() { LabelFormatter = PlainNumber };
+
+    /// <summary>A tick value as plain digits: "1100", "0.25", "-3.5e-05".</summary>
+    public static string PlainNumber(double v) =>
+        v == 0 ? "0" : Math.Abs(v) is >= 1e-3 and < 1e7 ? v.ToString("0.####", System.Globalization.CultureInfo.InvariantCulture)
+                     : v.ToString("G3", System.Globalization.CultureInfo.InvariantCulture);
 
     /// <summary>Saves as PNG or SVG by extension, through a temporary file.</summary>
     /// <exception cref="ArgumentException">The extension is neither .png nor .svg.</exception>

@@ -81,8 +81,8 @@ public static class PhaseMap
         plot.Title((options.Title ?? (colorBy == "phase" ? "Phase map" : colorBy)) + Subtitle(table, grid, unit));
         plot.Axes.SetLimits(xs.Edges[0], xs.Edges[^1], ys.Edges[0], ys.Edges[^1]);
         // Ticks on the grid values themselves (inside the data range), when there are few enough to read.
-        if (xs.Values.Length <= MaxLabelledTicks) plot.Axes.Bottom.TickGenerator = Ticks(xs.Values);
-        if (ys.Values.Length <= MaxLabelledTicks) plot.Axes.Left.TickGenerator = Ticks(ys.Values);
+        plot.Axes.Bottom.TickGenerator = xs.Values.Length <= MaxLabelledTicks ? Ticks(xs.Values) : Output.PlotStyle.PlainTicks();
+        plot.Axes.Left.TickGenerator = ys.Values.Length <= MaxLabelledTicks ? Ticks(ys.Values) : Output.PlotStyle.PlainTicks();
         return plot;
     }
 

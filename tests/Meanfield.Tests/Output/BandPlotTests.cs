@@ -98,4 +98,13 @@ public sealed class BandPlotTests : IDisposable
         Assert.Equal(1000 * w1.Hi, w2.Hi, 6);
     }
 
+
+    // Tick labels are plain digits in every culture (common practice for figures in physics journals: no digit grouping).
+    [Theory]
+    [InlineData(1100.0, "1100")]
+    [InlineData(-0.25, "-0.25")]
+    [InlineData(0.0, "0")]
+    [InlineData(3.5e-5, "3.5E-05")]
+    [InlineData(2500000.0, "2500000")]
+    public void TickLabelsHaveNoThousandsSeparators(double v, string text) => Assert.Equal(text, PlotStyle.PlainNumber(v));
 }
