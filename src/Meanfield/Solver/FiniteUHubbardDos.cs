@@ -29,7 +29,7 @@ public sealed record FiniteUSolution(double U, double Filling, FourBosonAmplitud
 /// </summary>
 public static class FiniteUHubbardDos
 {
-    /// <summary>Tolerance on x = d^2 (dimensionless, d^2 &lt;= 1) of the golden-section minimization.</summary>
+    /// <summary>Tolerance on x = d^2 (dimensionless, d^2 &lt;= 1) of the bisection on dF/dx.</summary>
     public const double DoubleOccupancyTolerance = 1e-13;
 
     /// <summary>Solves the saddle point at repulsion U &gt;= 0 and filling 0 &lt; n &lt; 2.</summary>
@@ -41,20 +41,31 @@ public static class FiniteUHubbardDos
         double ekin = FreeKineticEnergy(dos, halfWidth, filling);
         double lo = FourBosonAmplitudes.MinDouble(filling), hi = FourBosonAmplitudes.MaxDouble(filling);
         double F(double x) => FourBosonAmplitudes.At(filling, x).Z * ekin + u * x;
-        // Golden section: F is unimodal in x (convex at n = 1: F = 16|e_kin| x^2 + (U - 8|e_kin|) x).
-        double g = 0.5 * (Math.Sqrt(5) - 1);
-        double a = lo, b = hi, c = b - g * (b - a), d = a + g * (b - a), fc = F(c), fd = F(d);
-        int iterations = 0;
-        while (b - a > DoubleOccupancyTolerance && iterations++ < 200)
+        // Stationarity dF/dx = e_kin dz/dx + U = 0, with z (1 - n/2)(n/2) = p^2 (e + d)^2 and de/dx = 1/(2e),
+        // dd/dx = 1/(2d), dp^2/dx = -1: dz/dx = (e + d)^2 [p^2/(e d) - 1] / [(1 - n/2)(n/2)]. F is convex on
+        // [lo, hi] (at n = 1 F = 16|e_kin| x^2 + (U - 8|e_kin|) x), so bisection on the sign of dF/dx finds the minimum;
+        // bisection rather than a direct search on F keeps x accurate to rounding (F is flat at its minimum).
+        double half = 0.5 * filling, den = (1 - half) * half;
+        double Slope(double x)
         {
-            if (fc <= fd) { b = d; d = c; fd = fc; c = b - g * (b - a); fc = F(c); }
-            else { a = c; c = d; fc = fd; d = a + g * (b - a); fd = F(d); }
+            var b = FourBosonAmplitudes.At(filling, x);
+            double ed = b.E * b.D, s2 = (b.E + b.D) * (b.E + b.D);
+            double dz = ed > 0 ? s2 * (b.P * b.P / ed - 1) / den : double.PositiveInfinity;
+            return ekin * dz + u;
         }
-        double best = 0.5 * (a + b);
+        double a = lo, c = hi;
+        int iterations = 0;
+        while (c - a > DoubleOccupancyTolerance && iterations++ < 200)
+        {
+            double m = 0.5 * (a + c), slope = Slope(m);
+            if (slope < 0) a = m; else c = m;
+        }
+        double best = 0.5 * (a + c);
         // Compare with the ends: past the Brinkman-Rice point the minimum sits on x = 0 (z = 0).
-        foreach (double end in (ReadOnlySpan<double>)[lo, hi]) if (F(end) < F(best)) best = end;
+        foreach (double end in (ReadOnlySpan<double>)[lo, hi]) if (F(end) <= F(best)) best = end;
+        bool converged = c - a <= DoubleOccupancyTolerance;
         var amps = FourBosonAmplitudes.At(filling, best);
-        return new FiniteUSolution(u, filling, amps, ekin, F(best), b - a <= DoubleOccupancyTolerance);
+        return new FiniteUSolution(u, filling, amps, ekin, F(best), converged);
     }
 
     /// <summary>
