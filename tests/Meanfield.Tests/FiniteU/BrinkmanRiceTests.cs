@@ -94,6 +94,19 @@ public class BrinkmanRiceTests
         Assert.Equal(n, amp.Filling, 1e-13);
     }
 
+    // Away from half filling there is no transition: at U -> infinity d -> 0, e^2 = 1 - n, p^2 = n/2, so
+    // z -> (1 - n)/(1 - n/2) (derived from the z above; the Gutzwiller result at n < 1, Vollhardt, Rev. Mod. Phys. 56,
+    // 99 (1984), from memory). The correction is of order |e_kin|/U (d ~ |e_kin|/U), so U = 1e4 D is checked to 1e-3.
+    [Theory]
+    [InlineData(LatticeKind.FlatDos, 0.8)]
+    [InlineData(LatticeKind.SemiEllipticDos, 0.5)]
+    public void Large_U_away_from_half_filling_stays_metallic(LatticeKind dos, double n)
+    {
+        var s = FiniteUHubbardDos.Solve(dos, D, 1e4 * D, n);
+        Assert.True(s.Converged);
+        Assert.Equal((1 - n) / (1 - n / 2), s.Z, 1e-3);
+    }
+
     [Fact]
     public void Bad_arguments_are_refused()
     {
