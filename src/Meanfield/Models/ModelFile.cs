@@ -17,7 +17,7 @@ public static class ModelFile
     private static readonly string[] ModelKeys = ["name", "energy_unit", "formula_units_per_cell", "electrons_per_cell", "flavours"];
     private static readonly string[] LatticeKeys = ["kind", "constant", "vectors", "half_width"];
     private static readonly string[] SiteKeys = ["name", "position", "orbitals", "shell"];
-    private static readonly string[] ShellKeys = ["name", "level", "degeneracy", "constraint", "group"];
+    private static readonly string[] ShellKeys = ["name", "level", "degeneracy", "constraint", "group", "U"];
     private static readonly string[] BondKeys = ["from", "to", "vector", "neighbour", "amplitude", "spin"];
     private static readonly string[] SpinKeys = ["identity", "x", "y", "z"];
     private static readonly string[] OnsiteKeys = ["orbital", "energy", "spin"];
@@ -228,7 +228,7 @@ public static class ModelFile
                 throw new ModelError(s.Entry("degeneracy")!.Value.Location, s.Field("degeneracy"), $"degeneracy must be between 1 and {MaxFlavours}, found {degeneracy}");
             var constraint = s.Expression("constraint") ?? ModelExpression.Constant(1, s.Field("constraint"), s.Location);
             shell = new ShellSpec(shellName, s.Expression("level", true)!, degeneracy is null ? null : (int)degeneracy,
-                                  constraint, s.String("group"), s.Path, s.Location);
+                                  constraint, s.String("group"), s.Path, s.Location, s.Expression("U"));
         }
         return new SiteSpec(name, position, orbitals, shell, t.Path, t.Location);
     }

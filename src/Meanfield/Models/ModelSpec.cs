@@ -41,9 +41,9 @@ public sealed record LatticeSpec(LatticeKind Kind, ModelExpression? Constant, IR
 public sealed record SiteSpec(string Name, Vec3? Position, IReadOnlyList<string> Orbitals, ShellSpec? Shell,
                               string Field, SourceLocation Location);
 
-/// <summary>The [site.shell] sub-table: the infinite-U correlated shell of the site.</summary>
+/// <summary>The [site.shell] sub-table: the correlated shell of the site; U null means infinite U.</summary>
 public sealed record ShellSpec(string Name, ModelExpression Level, int? Degeneracy, ModelExpression Constraint,
-                               string? Group, string Field, SourceLocation Location);
+                               string? Group, string Field, SourceLocation Location, ModelExpression? U = null);
 
 /// <summary>"site:orbital" as written, with its place for messages.</summary>
 public sealed record OrbitalRef(string Site, string Orbital, string Field, SourceLocation Location)

@@ -53,8 +53,18 @@ internal sealed class UnitCellLayout
                 if (!(q > 0 && q < flavours))
                     throw new ModelError(shell.Constraint.Location, shell.Constraint.Field, $"constraint Q = {q:G6} must lie in (0, {flavours}) (0 < Q < N = flavours)");
                 double level = PhysicalRange.CheckEnergy(shell.Level.EvaluateReal(env), spec.Header.Unit, shell.Level.Location, shell.Level.Field, "level");
+                double u = double.PositiveInfinity;
+                if (shell.U is { } uExpr)
+                {
+                    u = PhysicalRange.CheckEnergy(uExpr.EvaluateReal(env), spec.Header.Unit, uExpr.Location, uExpr.Field, "U");
+                    if (u < 0)
+                        throw new ModelError(uExpr.Location, uExpr.Field, $"U = {u:G6} is negative: the on-site repulsion must be >= 0");
+                    // The four-boson representation (e, p_sigma, d) of Kotliar & Ruckenstein is for N = 2 only.
+                    if (flavours != 2)
+                        throw new ModelError(uExpr.Location, uExpr.Field, $"finite U needs a shell with N = 2 flavours, found N = {flavours} (omit U for infinite U)");
+                }
                 layout._orbitalIndex[(s, shell.Name)] = layout.Orbitals.Count;
-                layout.Shells.Add(new CorrelatedShell(layout.Orbitals.Count, flavours, q, level, shell.Group ?? site.Name));
+                layout.Shells.Add(new CorrelatedShell(layout.Orbitals.Count, flavours, q, level, shell.Group ?? site.Name, u));
                 layout.Orbitals.Add(new Orbital(shell.Name, s, OrbitalKind.Correlated));
             }
         }

@@ -42,6 +42,9 @@ public sealed partial class SaddlePointSolver
         _model = model; _settings = settings;
         Bare = new BlochHamiltonian(model);
         if (model.Shells.Count == 0) throw new ArgumentException("the model has no correlated shell: there is no saddle point to solve");
+        if (model.Shells.FirstOrDefault(s => s.HasFiniteU) is { } finite)
+            throw new ArgumentException($"shell group '{finite.Group}' has finite U = {finite.U:G6}: the lattice saddle point is infinite-U only so far " +
+                                        "(finite U is solved so far only for a one-band site on a model DOS, FiniteUHubbardDos); omit U to solve at infinite U");
         var names = model.ShellGroups();
         _groups = new GroupInfo[names.Count];
         for (int g = 0; g < names.Count; g++)
