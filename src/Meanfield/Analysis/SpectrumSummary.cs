@@ -59,8 +59,11 @@ public static class SpectrumSummary
         DosValue? dos = null;
         if (req.Dos || solution.Decoupled)
         {
+            // Tetrahedra need every corner, but only the irreducible points are diagonalised (energies and kind
+            // weights are the same across an orbit).
             var m = solution.Mesh;
-            dos = new TetrahedronDos(solution.Hamiltonian, new KMesh(model.Lattice, m.N1, m.N2, m.N3, shifted: false)).DosAtEnergy(mu);
+            var gamma = new KMesh(model.Lattice, m.N1, m.N2, m.N3, shifted: false);
+            dos = new TetrahedronDos(solution.Hamiltonian, gamma, SymmetryWedge.For(model, gamma)).DosAtEnergy(mu);
         }
         GapReport? gaps = null;
         NodeSearchResult? nodes = null;
@@ -102,7 +105,9 @@ public static class SpectrumSummary
     // Gaps on the coarse search mesh, with the refined nodes included: a touching between mesh points closes the gap.
     private static GapReport Gaps(Solution solution, int occ, NodeSearchResult nodes)
     {
-        var g = GapFinder.Find(solution.Hamiltonian, new KMesh(solution.Model.Lattice, solution.Mesh!.N1, solution.Mesh.N2, solution.Mesh.N3, solution.Mesh.Shifted), occ);
+        // Band extrema are the same across a symmetry orbit: the irreducible points suffice.
+        var mesh = new KMesh(solution.Model.Lattice, solution.Mesh!.N1, solution.Mesh.N2, solution.Mesh.N3, solution.Mesh.Shifted);
+        var g = GapFinder.Find(MeshSpectrum.Compute(solution.Hamiltonian, SymmetryWedge.For(solution.Model, mesh), withProjections: false), occ);
         if (nodes.Nodes.Count == 0) return g;
         var lowest = nodes.Nodes.MinBy(n => n.Gap)!;
         double hi = nodes.Nodes.Max(n => n.Energy), lo = nodes.Nodes.Min(n => n.Energy);

@@ -15,10 +15,14 @@ public sealed class TetrahedronDos
     public MeshSpectrum Spectrum { get; }
     public IReadOnlyList<string> SiteNames { get; }
 
-    public TetrahedronDos(IBlochSource source, KMesh mesh)
+    public TetrahedronDos(IBlochSource source, KMesh mesh) : this(source, mesh, null) { }
+
+    /// <summary>The DOS on <paramref name="mesh"/>, diagonalising only its irreducible points when a wedge is given.</summary>
+    /// <exception cref="ArgumentException">A lattice without momentum.</exception>
+    public TetrahedronDos(IBlochSource source, KMesh mesh, SymmetryWedge? wedge)
     {
         if (mesh.Lattice.Dimension < 2) throw new ArgumentException("The DOS on a mesh needs a lattice with momentum.");
-        Spectrum = MeshSpectrum.Compute(source, mesh, withProjections: true);
+        Spectrum = wedge is not null ? MeshSpectrum.Compute(source, wedge, withProjections: true) : MeshSpectrum.Compute(source, mesh, withProjections: true);
         _simplices = MeshSimplices.Build(mesh);
         SiteNames = source.Model.Sites.Select(s => s.Name).ToArray();
     }
