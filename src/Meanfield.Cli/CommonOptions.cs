@@ -70,9 +70,7 @@ public static class CommonOptions
     /// <summary>"2K", "2 K", "0.3meV", "1e-3 eV" or a bare number (the model's energy unit) to the model's energy unit.</summary>
     public static double ParseTemperature(string text, EnergyUnit unit, string option = "--temperature")
     {
-        var parsed = EnergyText.Parse(text);
-        if (!parsed.Success) throw new UserInputException($"{option} '{text}': {parsed.Error}");
-        double inUnit = parsed.Quantity.In(unit);
+        double inUnit = ParseEnergy(text, unit, option);
         if (!(inUnit >= 0) || !double.IsFinite(inUnit)) throw new UserInputException($"{option} '{text}': temperature must be a finite number >= 0");
         if (inUnit > PhysicalRange.MaxEnergy(unit))
             throw new UserInputException($"{option} '{text}': beyond the physical range (at most {PhysicalRange.MaxEnergyText(unit)})");

@@ -56,6 +56,8 @@ public static class SpectrumSummary
             var label = solution.Decoupled ? new PhaseLabel(Phase.Decoupled, "all boson amplitudes vanish (r = 0)") : null;
             return new(mu, label, null, null, null, new SpectrumColumns { Phase = label?.Name, PhaseReason = label?.Reason });
         }
+        // The operations of H(k), found once for both the DOS and the gap meshes.
+        var group = new Lazy<global::Meanfield.Symmetry.SymmetryGroup>(() => global::Meanfield.Symmetry.SymmetryGroup.Find(new Bloch.BlochHamiltonian(model)));
         DosValue? dos = null;
         if (req.Dos || solution.Decoupled)
         {
@@ -63,7 +65,7 @@ public static class SpectrumSummary
             // weights are the same across an orbit).
             var m = solution.Mesh;
             var gamma = new KMesh(model.Lattice, m.N1, m.N2, m.N3, shifted: false);
-            dos = new TetrahedronDos(solution.Hamiltonian, gamma, SymmetryWedge.For(model, gamma)).DosAtEnergy(mu);
+            dos = new TetrahedronDos(solution.Hamiltonian, gamma, SymmetryWedge.For(model, group.Value, gamma)).DosAtEnergy(mu);
         }
         GapReport? gaps = null;
         NodeSearchResult? nodes = null;
@@ -73,7 +75,7 @@ public static class SpectrumSummary
             var options = new NodeSearchOptions { Mesh = req.SearchMesh, Temperature = solution.Temperature };
             nodes = solution.PlacementNodes is { } p && p.ChemicalPotential == mu && req.SearchMesh == NodeSearchOptions.DefaultMesh && solution.Temperature == 0
                 ? p : NodeSearch.Find(solution.Hamiltonian, occ, mu, options);
-            gaps = Gaps(solution, occ, nodes);
+            gaps = Gaps(solution, occ, nodes, group.Value);
         }
         var phase = PhaseClassifier.Classify(solution.Decoupled, solution.WholeFilling, gaps, nodes);
         InvariantReport? invariants = null;
@@ -102,12 +104,11 @@ public static class SpectrumSummary
         return new(mu, phase, gaps, nodes, dos, columns, invariants);
     }
 
-    // Gaps on the coarse search mesh, with the refined nodes included: a touching between mesh points closes the gap.
-    private static GapReport Gaps(Solution solution, int occ, NodeSearchResult nodes)
+    // Gaps on the solution's mesh, with the refined nodes included: a touching between mesh points closes the gap.
+    // Band extrema are the same across a symmetry orbit, so the irreducible points suffice.
+    private static GapReport Gaps(Solution solution, int occ, NodeSearchResult nodes, global::Meanfield.Symmetry.SymmetryGroup group)
     {
-        // Band extrema are the same across a symmetry orbit: the irreducible points suffice.
-        var mesh = new KMesh(solution.Model.Lattice, solution.Mesh!.N1, solution.Mesh.N2, solution.Mesh.N3, solution.Mesh.Shifted);
-        var g = GapFinder.Find(MeshSpectrum.Compute(solution.Hamiltonian, SymmetryWedge.For(solution.Model, mesh), withProjections: false), occ);
+        var g = GapFinder.Find(MeshSpectrum.Compute(solution.Hamiltonian, SymmetryWedge.For(solution.Model, group, solution.Mesh!), withProjections: false), occ);
         if (nodes.Nodes.Count == 0) return g;
         var lowest = nodes.Nodes.MinBy(n => n.Gap)!;
         double hi = nodes.Nodes.Max(n => n.Energy), lo = nodes.Nodes.Min(n => n.Energy);

@@ -17,9 +17,11 @@ public sealed record SymmetryWedge(IrreducibleMesh Mesh, bool ExchangesSites)
     /// The wedge of <paramref name="mesh"/> for <paramref name="model"/>. The operations are those of the bare model that
     /// map every shell group onto itself, so they are operations of every renormalized Hamiltonian of the model too.
     /// </summary>
-    public static SymmetryWedge For(BoundModel model, KMesh mesh)
+    public static SymmetryWedge For(BoundModel model, KMesh mesh) => For(model, SymmetryGroup.Find(new BlochHamiltonian(model)), mesh);
+
+    /// <summary>The wedge of <paramref name="mesh"/> under <paramref name="group"/>, found once for several meshes.</summary>
+    public static SymmetryWedge For(BoundModel model, SymmetryGroup group, KMesh mesh)
     {
-        var group = SymmetryGroup.Find(new BlochHamiltonian(model));
         int f = model.Flavours, n = model.Orbitals.Count * f;
         bool exchanges = false;
         foreach (var op in group.Operations)

@@ -9,7 +9,7 @@ namespace Meanfield.Analysis.Responses;
 /// <param name="Tensor">D_ab row-major (a = derivative direction, b = curvature component).</param>
 /// <param name="Cones">Type-I Weyl cones summed.</param>
 /// <param name="Skipped">Nodes left out, with why (Dirac nodes carry no monopole; type-II cones have open Fermi surfaces
-/// for which the limit is not scale free; undetermined chiralities).</param>
+/// for which the limit is not scale free; undetermined chiralities; cones that are flat in some direction).</param>
 /// <param name="Complete">Every node entered the sum: only then is <see cref="Tensor"/> the cone limit of the whole D.</param>
 public sealed record ConeDipoleResult(double[] Tensor, int Cones, IReadOnlyList<string> Skipped, bool Complete);
 
@@ -55,6 +55,7 @@ public static class ConeDipole
             if (n.IsDirac) { skipped.Add($"Dirac node at {n.Reduced}: no monopole charge"); continue; }
             if (n.Chirality is not { } chi) { skipped.Add($"node at {n.Reduced}: chirality undetermined"); continue; }
             if (n.Type == NodeType.TypeII) { skipped.Add($"type-II node at {n.Reduced}: open Fermi surface, no scale-free limit"); continue; }
+            if (!(n.DetVelocity > 0)) { skipped.Add($"node at {n.Reduced}: the cone is not linear in every direction"); continue; }
             Accumulate(d, chi, n.Velocity, n.Tilt);
             cones++;
         }
@@ -97,16 +98,11 @@ public static class ConeDipole
 
     private static double[,] Invert(double[,] m)
     {
-        double det = m[0, 0] * (m[1, 1] * m[2, 2] - m[1, 2] * m[2, 1]) - m[0, 1] * (m[1, 0] * m[2, 2] - m[1, 2] * m[2, 0])
-                   + m[0, 2] * (m[1, 0] * m[2, 1] - m[1, 1] * m[2, 0]);
-        if (det == 0) throw new ArgumentException("a cone with a singular velocity tensor has no linear limit");
+        Span<double> a = stackalloc double[9], inv = stackalloc double[9];
+        for (int i = 0; i < 9; i++) a[i] = m[i / 3, i % 3];
+        if (!Numerics.Matrix3.TryInvert(a, inv)) throw new ArgumentException("a cone with a singular velocity tensor has no linear limit");
         var r = new double[3, 3];
-        for (int a = 0; a < 3; a++)
-            for (int b = 0; b < 3; b++)
-            {
-                int a1 = (b + 1) % 3, a2 = (b + 2) % 3, b1 = (a + 1) % 3, b2 = (a + 2) % 3;
-                r[a, b] = (m[a1, b1] * m[a2, b2] - m[a1, b2] * m[a2, b1]) / det;
-            }
+        for (int i = 0; i < 9; i++) r[i / 3, i % 3] = inv[i];
         return r;
     }
 }
