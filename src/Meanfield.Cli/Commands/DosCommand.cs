@@ -19,7 +19,7 @@ public static class DosCommand
         var output = CommonOptions.Out();
         var mesh = new Option<int>("--dos-mesh") { Description = "k-mesh divisions per reciprocal axis of the DOS tetrahedra (Gamma-centred)", DefaultValueFactory = _ => 24 };
         var solverMesh = CommonOptions.Mesh();
-        var window = new Option<double[]>("--window") { Description = "Energy window E1 E2 (model energy unit; default: the band range)", Arity = new ArgumentArity(2, 2), AllowMultipleArgumentsPerToken = true };
+        var window = new Option<double[]>("--window") { Description = "Energy window E1 E2 around mu (model energy unit, relative to mu as in bands, hall and dipole; default: the band range)", Arity = new ArgumentArity(2, 2), AllowMultipleArgumentsPerToken = true };
         var step = new Option<double?>("--step") { Description = "Energy step (default: bandwidth / 2000)" };
         var gaussian = new Option<double?>("--gaussian") { Description = "Gaussian broadening SIGMA (energy unit) instead of linear tetrahedra (smears the E^2 law near nodes)" };
         var bare = CommonOptions.Bare();
@@ -49,7 +49,7 @@ public static class DosCommand
             var tetra = new TetrahedronDos(src.Hamiltonian, kmesh);
             var (lo, hi) = tetra.Spectrum.Range();
             double width = Math.Max(hi - lo, 1e-12);
-            double e0 = win?[0] ?? lo, e1 = win?[1] ?? hi;
+            double e0 = win is null ? lo : src.Mu + win[0], e1 = win is null ? hi : src.Mu + win[1];
             double h = dE ?? width / 2000;
             long points = (long)Math.Floor((e1 - e0) / h + 1e-9) + 1;
             if (points < 2) throw new UserInputException($"--step {h:G6}: wider than the window {e0:G6}..{e1:G6}");
