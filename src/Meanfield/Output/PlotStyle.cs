@@ -1,10 +1,11 @@
 using ScottPlot;
+using SkiaSharp;
 
 namespace Meanfield.Output;
 
 /// <summary>
 /// The house style of meanfield's plots: the bundled DejaVu Sans for all text, 1000 x 700 pixels, axis labels written
-/// "quantity (unit)", and the image format chosen by the file extension (.png or .svg), written atomically.
+/// "quantity (unit)", and the picture format chosen by the file extension (.png, .svg or .pdf, see <see cref="Save"/>), written atomically.
 /// </summary>
 public static class PlotStyle
 {
@@ -50,17 +51,88 @@ public static class PlotStyle
         return plot;
     }
 
-    /// <summary>Saves as PNG or SVG by extension, through a temporary file.</summary>
-    /// <exception cref="ArgumentException">The extension is neither .png nor .svg.</exception>
-    public static void Save(Plot plot, string path, int width = Width, int height = Height)
+    /// <summary>The picture formats every plot writer accepts, by file extension.</summary>
+    public static readonly IReadOnlyList<string> PictureExtensions = [".png", ".svg", ".pdf"];
+
+    /// <summary>"a .png, .svg or .pdf file name", for option descriptions and messages.</summary>
+    public const string PictureKinds = ".png (raster), .svg or .pdf (vector)";
+
+    /// <summary>
+    /// Refuses a picture name whose extension is not one of <see cref="PictureExtensions"/>, before anything is
+    /// computed or written.
+    /// </summary>
+    /// <param name="path">The picture's path.</param>
+    /// <param name="option">The option that named it, for the message.</param>
+    /// <exception cref="OutputPathException">The extension is missing or unknown.</exception>
+    public static void CheckPictureName(string path, string option = "--out")
     {
         var ext = Path.GetExtension(path).ToLowerInvariant();
-        byte[] bytes = ext switch
+        if (!PictureExtensions.Contains(ext))
+            throw new OutputPathException($"{option} {path}: a picture is written as {PictureKinds}; " +
+                                          $"'{(ext.Length == 0 ? "(no extension)" : ext)}' is none of them");
+    }
+
+    /// <summary>
+    /// Saves a plot in the format its extension names, through a temporary file: .png through Skia's raster surface,
+    /// .svg through Skia's SVG canvas (paths and text, no embedded bitmap), .pdf through Skia's PDF document (one page,
+    /// one point per pixel, fonts embedded).
+    /// </summary>
+    /// <exception cref="OutputPathException">The extension is not .png, .svg or .pdf; nothing is written.</exception>
+    public static void Save(Plot plot, string path, int width = Width, int height = Height) =>
+        SavePanels([plot], path, width, height);
+
+    /// <summary>
+    /// Saves plots side by side, each <paramref name="panelWidth"/> x <paramref name="height"/>, as one picture in the
+    /// format its extension names (see <see cref="Save"/>): every format keeps the panels vector where it can.
+    /// </summary>
+    /// <exception cref="OutputPathException">The extension is not .png, .svg or .pdf; nothing is written.</exception>
+    public static void SavePanels(IReadOnlyList<Plot> panels, string path, int panelWidth = Width, int height = Height)
+    {
+        CheckPictureName(path, "picture");
+        int width = panelWidth * panels.Count;
+        void Draw(SKCanvas canvas)
         {
-            ".png" => plot.GetImageBytes(width, height, ImageFormat.Png),
-            ".svg" => System.Text.Encoding.UTF8.GetBytes(plot.GetSvgXml(width, height)),
-            _ => throw new ArgumentException($"Plot '{path}': unknown extension '{ext}'; use .png or .svg."),
-        };
-        AtomicFile.Write(path, s => s.Write(bytes));
+            canvas.Clear(SKColors.White);
+            for (int i = 0; i < panels.Count; i++)
+            {
+                canvas.Save();
+                canvas.Translate(i * panelWidth, 0);
+                canvas.ClipRect(new SKRect(0, 0, panelWidth, height));
+                panels[i].Render(canvas, panelWidth, height);
+                canvas.Restore();
+            }
+        }
+        switch (Path.GetExtension(path).ToLowerInvariant())
+        {
+            case ".png":
+            {
+                using var surface = SKSurface.Create(new SKImageInfo(width, height))
+                    ?? throw new InvalidOperationException($"picture {path}: Skia could not create a {width} x {height} surface");
+                Draw(surface.Canvas);
+                using var image = surface.Snapshot();
+                using var data = image.Encode(SKEncodedImageFormat.Png, 100);
+                AtomicFile.Write(path, s => data.SaveTo(s));
+                break;
+            }
+            case ".svg":
+                AtomicFile.Write(path, s =>
+                {
+                    // The SVG canvas writes its closing tag when disposed, so it must be disposed before the stream is.
+                    using var managed = new SKManagedWStream(s);
+                    using (var canvas = SKSvgCanvas.Create(new SKRect(0, 0, width, height), managed)) Draw(canvas);
+                });
+                break;
+            default:
+                AtomicFile.Write(path, s =>
+                {
+                    using var managed = new SKManagedWStream(s);
+                    using var document = SKDocument.CreatePdf(managed)
+                        ?? throw new InvalidOperationException($"picture {path}: this SkiaSharp build has no PDF back end");
+                    Draw(document.BeginPage(width, height));
+                    document.EndPage();
+                    document.Close();
+                });
+                break;
+        }
     }
 }

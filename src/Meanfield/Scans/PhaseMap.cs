@@ -10,14 +10,15 @@ namespace Meanfield.Scans;
 /// </summary>
 public static class PhaseMap
 {
-    public static void Save(string parquetFile, string xAxis, string yAxis, string colorBy, string pngPath, PhaseMapOptions? options = null)
+    /// <summary>Reads a scan result and draws it to <paramref name="picturePath"/> (.png, .svg or .pdf by extension).</summary>
+    /// <exception cref="Meanfield.Output.OutputPathException">The picture's extension is not .png, .svg or .pdf (checked before the scan is read).</exception>
+    /// <exception cref="ScanError">The file is not a readable scan result, or an axis or column is not in it.</exception>
+    public static void Save(string parquetFile, string xAxis, string yAxis, string colorBy, string picturePath, PhaseMapOptions? options = null)
     {
-        var table = ScanParquet.ReadAsync(parquetFile).GetAwaiter().GetResult();
-        var plot = Build(table, xAxis, yAxis, colorBy, options ?? new PhaseMapOptions());
+        Meanfield.Output.PlotStyle.CheckPictureName(picturePath);
         var o = options ?? new PhaseMapOptions();
-        string tmp = pngPath + ".tmp.png";
-        plot.SavePng(tmp, o.Width, o.Height);
-        File.Move(tmp, pngPath, overwrite: true);
+        var table = ScanParquet.ReadAsync(parquetFile).GetAwaiter().GetResult();
+        Meanfield.Output.PlotStyle.Save(Build(table, xAxis, yAxis, colorBy, o), picturePath, o.Width, o.Height);
     }
 
     public static Plot Build(ScanTable table, string xAxis, string yAxis, string colorBy, PhaseMapOptions options)

@@ -66,7 +66,7 @@ public sealed class BandPlotTests : IDisposable
         BandPlot.Save(b, svg, "Invented compound", chemicalPotential: 0);
         var xml = File.ReadAllText(svg);
         Assert.Contains("<svg", xml);
-        Assert.Throws<ArgumentException>(() => BandPlot.Save(b, Path.Combine(_dir, "bands.gif"), "x"));
+        Assert.Throws<OutputPathException>(() => BandPlot.Save(b, Path.Combine(_dir, "bands.gif"), "x"));
         Assert.Equal(2, Directory.GetFiles(_dir).Length);
     }
 
