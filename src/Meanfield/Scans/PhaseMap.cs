@@ -1,12 +1,15 @@
 using System.Globalization;
+using Meanfield.Analysis;
 using ScottPlot;
 
 namespace Meanfield.Scans;
 
 /// <summary>
-/// Draws a scan over two axes as a map: categorical colours with a legend for the phase label (or any text column),
-/// a colour scale with a colour bar for a numeric column, optional contour lines of a numeric column, and hatched
-/// grey cells for points that did not converge. Log-spaced axes are drawn as log10.
+/// Draws a scan over two axes as a map: fixed colours per phase with readable names in a legend beside the data (or
+/// any text column), a colour scale with a colour bar for a numeric column, optional contour lines of a numeric column
+/// named in the legend, and hatched grey cells for points that did not converge. Axes are titled with their units
+/// (<see cref="PhaseMapLabels.AxisTitle"/>), ticks sit at round values inside the grid's range, and the subtitle names
+/// model, temperature and mesh. Log-spaced axes are drawn as log10. Written as .png, .svg or .pdf by extension.
 /// </summary>
 public static class PhaseMap
 {
@@ -41,13 +44,11 @@ public static class PhaseMap
             var palette = new ScottPlot.Palettes.Category10();
             // Points that did not converge carry no label: they are drawn hatched below, not as a category.
             var labelled = rows.Where(r => r.Row.Result.Converged).ToList();
-            var labels = labelled.Select(r => color.Value(r.Row) as string ?? "(none)").Distinct().Order(StringComparer.Ordinal).ToList();
-            foreach (var (row, i, j) in labelled)
-            {
-                var c = palette.GetColor(labels.IndexOf(color.Value(row) as string ?? "(none)"));
-                Cell(plot, xs, ys, i, j, c);
-            }
-            legend.AddRange(labels.Select((l, k) => new LegendItem { LabelText = l, FillColor = palette.GetColor(k) }));
+            var labels = labelled.Select(r => color.Value(r.Row) as string ?? "(none)").Distinct()
+                                 .OrderBy(PhaseOrder).ThenBy(l => l, StringComparer.Ordinal).ToList();
+            Color Fill(string label) => PhaseColour(label) ?? palette.GetColor(labels.IndexOf(label));
+            foreach (var (row, i, j) in labelled) Cell(plot, xs, ys, i, j, Fill(color.Value(row) as string ?? "(none)"));
+            legend.AddRange(labels.Select(l => new LegendItem { LabelText = PhaseMapLabels.LegendText(l), FillColor = Fill(l) }));
         }
         else
         {
@@ -60,7 +61,8 @@ public static class PhaseMap
             heat.NaNCellColor = Colors.Transparent;
             heat.Rectangle = new CoordinateRect(xs.Edges[0], xs.Edges[^1], ys.Edges[0], ys.Edges[^1]);
             var bar = plot.Add.ColorBar(heat);
-            bar.Label = colorBy;
+            bar.Label = Meanfield.Output.PlotStyle.AxisLabel(colorBy, ColumnUnit(table, colorBy));
+            bar.LabelStyle.FontName = Meanfield.Output.PlotStyle.FontName;
         }
 
         var failed = rows.Where(r => !r.Row.Result.Converged).ToList();
@@ -72,15 +74,104 @@ public static class PhaseMap
                 FillHatch = new ScottPlot.Hatches.Striped(), FillHatchColor = Colors.DimGray,
             });
 
-        if (options.ContourColumn is { } contourName) AddContours(plot, table, Column(table, contourName), rows, xs, ys, options.ContourLevels);
+        if (options.ContourColumn is { } contourName && AddContours(plot, Column(table, contourName), rows, xs, ys, options.ContourLevels))
+            legend.Add(new LegendItem
+            {
+                LabelText = $"contours of {Meanfield.Output.PlotStyle.AxisLabel(contourName, ColumnUnit(table, contourName))}",
+                LineColor = Colors.Black, LineWidth = 1,
+            });
 
-        if (legend.Count > 0) plot.ShowLegend(legend, Alignment.UpperRight);
-        plot.XLabel(xLog ? $"log10({xa.Name})" : xa.Name);
-        plot.YLabel(yLog ? $"log10({ya.Name})" : ya.Name);
-        plot.Title(options.Title ?? $"{colorBy} over {xa.Name} and {ya.Name}");
+        string energyUnit = table.Metadata.GetValueOrDefault(ScanMetadata.EnergyUnit) ?? "";
+        string xTitle = PhaseMapLabels.AxisTitle(xa, grid, energyUnit), yTitle = PhaseMapLabels.AxisTitle(ya, grid, energyUnit);
+        if (legend.Count > 0)
+        {
+            plot.Legend.ManualItems.AddRange(legend);
+            plot.Legend.FontName = Meanfield.Output.PlotStyle.FontName;
+            plot.Legend.FontSize = Meanfield.Output.PlotStyle.TickFontSize;
+            plot.ShowLegend(Edge.Right);
+        }
+        plot.XLabel(xLog ? $"log10 {xTitle}" : xTitle, Meanfield.Output.PlotStyle.LabelFontSize);
+        plot.YLabel(yLog ? $"log10 {yTitle}" : yTitle, Meanfield.Output.PlotStyle.LabelFontSize);
+        string subtitle = PhaseMapLabels.Subtitle(table);
+        string heading = options.Title ?? (colorBy == "phase" ? "Phase map" : $"{colorBy} over {xTitle} and {yTitle}");
+        plot.Title(subtitle.Length > 0 ? heading + "\n" + subtitle : heading, Meanfield.Output.PlotStyle.LabelFontSize);
+        plot.Axes.Bottom.TickGenerator = Ticks(xs.Values);
+        plot.Axes.Left.TickGenerator = Ticks(ys.Values);
+        plot.Axes.Bottom.TickLabelStyle.FontSize = Meanfield.Output.PlotStyle.TickFontSize;
+        plot.Axes.Left.TickLabelStyle.FontSize = Meanfield.Output.PlotStyle.TickFontSize;
+        plot.HideGrid();
         plot.Axes.SetLimits(xs.Edges[0], xs.Edges[^1], ys.Edges[0], ys.Edges[^1]);
         return plot;
     }
+
+    /// <summary>
+    /// Fixed colours per phase, so that maps of different scans compare at a glance: insulators in blues and greens
+    /// (darker for topological), Weyl in reds, Dirac in oranges, lighter tints for the variants with pockets
+    /// (ColorBrewer "Paired", Brewer, Harrower &amp; Hillier, Cartogr. J. 40, 27 (2003)). Null for other text.
+    /// </summary>
+    private static Color? PhaseColour(string label) => PhaseOf(label) switch
+    {
+        Phase.Decoupled => new Color(202, 178, 214),
+        Phase.KondoInsulator => new Color(166, 206, 227),
+        Phase.TrivialKondoInsulator => new Color(31, 120, 180),
+        Phase.WeakTopologicalKondoInsulator => new Color(178, 223, 138),
+        Phase.StrongTopologicalKondoInsulator => new Color(51, 160, 44),
+        Phase.TopologicalKondoInsulator => new Color(27, 120, 100),
+        Phase.WeylSemimetal => new Color(227, 26, 28),
+        Phase.WeylSemimetalWithPockets => new Color(251, 154, 153),
+        Phase.DiracSemimetal => new Color(255, 127, 0),
+        Phase.DiracSemimetalWithPockets => new Color(253, 191, 111),
+        Phase.NodalLine => new Color(106, 61, 154),
+        Phase.HeavyMetal => new Color(177, 89, 40),
+        Phase.Unresolved => new Color(60, 60, 60),
+        _ => null,
+    };
+
+    private static Phase? PhaseOf(string label)
+    {
+        foreach (var p in Enum.GetValues<Phase>()) if (PhaseClassifier.Name(p) == label) return p;
+        return null;
+    }
+
+    // Legend order: the phases in the enum's order (insulators, semimetals, metal), then any other text.
+    private static int PhaseOrder(string label) => PhaseOf(label) is Phase p ? (int)p : int.MaxValue;
+
+    private static string? ColumnUnit(ScanTable table, string column)
+    {
+        if (table.Metadata.GetValueOrDefault(ScanMetadata.Units) is not { } json) return null;
+        try
+        {
+            var unit = System.Text.Json.Nodes.JsonNode.Parse(json)?[column]?.GetValue<string>();
+            return string.IsNullOrEmpty(unit) ? null : unit;
+        }
+        catch (System.Text.Json.JsonException) { return null; }
+        catch (InvalidOperationException) { return null; }
+    }
+
+    /// <summary>
+    /// Ticks at round numbers (1, 2, 2.5 or 5 times a power of ten, four to eight of them) between the first and
+    /// last grid value, never in the half cell beyond, written without thousands separators.
+    /// </summary>
+    private static ScottPlot.TickGenerators.NumericManual Ticks(double[] values)
+    {
+        var ticks = new ScottPlot.TickGenerators.NumericManual();
+        foreach (double t in TickPositions(values[0], values[^1])) ticks.AddMajor(t, TickLabel(t));
+        return ticks;
+    }
+
+    /// <summary>Round tick positions from <paramref name="lo"/> to <paramref name="hi"/> (see <see cref="Ticks"/>).</summary>
+    internal static double[] TickPositions(double lo, double hi)
+    {
+        if (!(hi > lo)) return [lo];
+        double raw = (hi - lo) / 7, power = Math.Pow(10, Math.Floor(Math.Log10(raw))), step = 10 * power;
+        foreach (double m in (double[])[1, 2, 2.5, 5]) if (m * power >= raw) { step = m * power; break; }
+        var list = new List<double>();
+        for (double t = Math.Ceiling(lo / step - 1e-9) * step; t <= hi + 1e-9 * step; t += step) list.Add(Math.Abs(t) < 1e-9 * step ? 0 : t);
+        return [.. list];
+    }
+
+    /// <summary>A tick label: invariant culture, no thousands separators, no trailing zeros.</summary>
+    internal static string TickLabel(double v) => v.ToString("0.######", CultureInfo.InvariantCulture);
 
     private sealed record AxisCoords(double[] Values, double[] Edges);
 
@@ -104,11 +195,14 @@ public static class PhaseMap
         if (i < 0 || j < 0) return;
         var rect = plot.Add.Rectangle(xs.Edges[i], xs.Edges[i + 1], ys.Edges[j], ys.Edges[j + 1]);
         rect.FillColor = fill;
-        rect.LineWidth = 0;
+        // An outline in the fill colour closes the anti-aliasing seams between neighbouring cells.
+        rect.LineWidth = 1;
+        rect.LineColor = fill;
         if (hatched) { rect.FillStyle.Hatch = new ScottPlot.Hatches.Striped(); rect.FillStyle.HatchColor = Colors.DimGray; }
     }
 
-    private static void AddContours(Plot plot, ScanTable table, ScanColumn column,
+    /// <returns>True when contours were drawn.</returns>
+    private static bool AddContours(Plot plot, ScanColumn column,
                                     List<(ScanRow Row, int I, int J)> rows, AxisCoords xs, AxisCoords ys, int levels)
     {
         var points = new Coordinates3d[ys.Values.Length, xs.Values.Length];
@@ -120,10 +214,11 @@ public static class PhaseMap
             filled[j, i] = true;
         }
         // Contouring needs a full rectangle of values; a scan with gaps (more than two axes, failures) gets none.
-        foreach (bool f in filled) if (!f) return;
-        if (xs.Values.Length < 2 || ys.Values.Length < 2) return;
+        foreach (bool f in filled) if (!f) return false;
+        if (xs.Values.Length < 2 || ys.Values.Length < 2) return false;
         var contours = plot.Add.ContourLines(points, levels);
         contours.LineColor = Colors.Black;
+        return true;
     }
 
     private static int AxisIndex(ScanTable table, string name)
