@@ -15,8 +15,9 @@ public static class BandsCommand
         var path = new Option<string>("--path") { Description = "\"auto\" (the lattice's standard path) or labels like \"G X W L G\" (| breaks the path)", DefaultValueFactory = _ => "auto" };
         var points = new Option<int>("--points") { Description = "k-points along the whole path", DefaultValueFactory = _ => 300 };
         var weight = new Option<bool>("--no-weight") { Description = "Do not colour the bands by their correlated-orbital weight" };
+        var window = new Option<double[]>("--window") { Description = "Energy window E1 E2 of the picture, relative to mu (model energy unit; default: around the heavy bands)", Arity = new ArgumentArity(2, 2), AllowMultipleArgumentsPerToken = true };
         var command = new Command("bands", "Band energies along a high-symmetry path (CSV or Parquet by extension) and a picture (PNG next to it)")
-            { output, path, points, weight };
+            { output, path, points, weight, window };
         solution.AddTo(command);
         command.SetAction(parse =>
         {
@@ -26,6 +27,7 @@ public static class BandsCommand
             if (ext is not (".csv" or ".parquet")) throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name");
             int count = parse.GetValue(points);
             if (count < 2) throw new UserInputException($"--points {count}: need at least 2");
+            if (parse.GetValue(window) is { Length: 2 } win && !(win[1] > win[0])) throw new UserInputException($"--window {win[0]} {win[1]}: E2 must exceed E1");
             CommonOptions.RefuseOverwrite(parse.GetValue(solution.Input)!, [outPath, Path.ChangeExtension(outPath, ".png")]);
             var src = solution.Resolve(parse, o);
             if (src.Model.IsMomentumFree) throw new UserInputException($"{src.Model.SourcePath}: a momentum-free lattice has no bands along a path; use `dos`");
@@ -37,7 +39,8 @@ public static class BandsCommand
             BandTableWriter.Write(bands, outPath, metadata);
             var picture = Path.ChangeExtension(outPath, ".png");
             var title = $"{src.Model.Name}: {(src.Origin == Solutions.SolutionOrigin.BareModel ? "bare bands" : "renormalized bands")}";
-            BandPlot.Save(bands, picture, title, src.Model.Unit, src.Mu, colourByCorrelatedWeight: !parse.GetValue(weight) && src.Model.Shells.Count > 0);
+            BandPlot.Save(bands, picture, title, src.Model.Unit, src.Mu, colourByCorrelatedWeight: !parse.GetValue(weight) && src.Model.Shells.Count > 0,
+                window: parse.GetValue(window) is { Length: 2 } w ? (w[0], w[1]) : null);
             o.WriteLine($"wrote {outPath} and {picture} ({bands.Energies().GetLength(0)} k-points, {bands.Energies().GetLength(1)} bands)");
             return ExitCodes.Success;
         });

@@ -47,9 +47,28 @@ public static class PlotStyle
         plot.YLabel(yLabel, LabelFontSize);
         plot.Axes.Bottom.TickLabelStyle.FontSize = TickFontSize;
         plot.Axes.Left.TickLabelStyle.FontSize = TickFontSize;
+        plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericAutomatic { LabelFormatter = Number };
+        plot.Axes.Left.TickGenerator = new ScottPlot.TickGenerators.NumericAutomatic { LabelFormatter = Number, TargetTickCount = 8 };
         plot.HideGrid();
         return plot;
     }
+
+    /// <summary>
+    /// A tick or legend number: invariant culture, no thousands separators, at most six significant digits, the
+    /// typographic minus sign (U+2212); exponent form only outside 1e-4..1e6.
+    /// </summary>
+    public static string Number(double v)
+    {
+        var inv = System.Globalization.CultureInfo.InvariantCulture;
+        double a = Math.Abs(v);
+        string text = a == 0 ? "0"
+            : a is >= 1e-4 and < 1e6 ? double.Parse(v.ToString("G6", inv), inv).ToString("0.##########", inv)
+            : v.ToString("0.#####E+0", inv);
+        return text.Replace('-', '\u2212');
+    }
+
+    /// <summary>The chemical-potential line's colour: a green that neither end nor the middle of the weight colour scale uses.</summary>
+    public static readonly Color ChemicalPotentialColour = new(0, 140, 70);
 
     /// <summary>The picture formats every plot writer accepts, by file extension.</summary>
     public static readonly IReadOnlyList<string> PictureExtensions = [".png", ".svg", ".pdf"];
