@@ -160,10 +160,13 @@ public static class PhaseMap
     }
 
     /// <summary>Round tick positions from <paramref name="lo"/> to <paramref name="hi"/> (see <see cref="Ticks"/>).</summary>
-    internal static double[] TickPositions(double lo, double hi)
+    /// <param name="lo">First value.</param>
+    /// <param name="hi">Last value.</param>
+    /// <param name="count">About how many intervals to aim for.</param>
+    internal static double[] TickPositions(double lo, double hi, int count = 7)
     {
         if (!(hi > lo)) return [lo];
-        double raw = (hi - lo) / 7, power = Math.Pow(10, Math.Floor(Math.Log10(raw))), step = 10 * power;
+        double raw = (hi - lo) / count, power = Math.Pow(10, Math.Floor(Math.Log10(raw))), step = 10 * power;
         foreach (double m in (double[])[1, 2, 2.5, 5]) if (m * power >= raw) { step = m * power; break; }
         var list = new List<double>();
         for (double t = Math.Ceiling(lo / step - 1e-9) * step; t <= hi + 1e-9 * step; t += step) list.Add(Math.Abs(t) < 1e-9 * step ? 0 : t);
@@ -216,8 +219,33 @@ public static class PhaseMap
         // Contouring needs a full rectangle of values; a scan with gaps (more than two axes, failures) gets none.
         foreach (bool f in filled) if (!f) return false;
         if (xs.Values.Length < 2 || ys.Values.Length < 2) return false;
-        var contours = plot.Add.ContourLines(points, levels);
-        contours.LineColor = Colors.Black;
+        double lo = double.PositiveInfinity, hi = double.NegativeInfinity;
+        foreach (var p in points) { lo = Math.Min(lo, p.Z); hi = Math.Max(hi, p.Z); }
+        if (!(hi > lo)) return false;
+        // Round levels inside the data (the tick rule, about the number asked for), so labels read as plain numbers.
+        var values = TickPositions(lo, hi, Math.Max(1, levels)).Where(v => v > lo && v < hi).ToArray();
+        if (values.Length == 0) return false;
+        var contours = new ScottPlot.Plottables.ContourLines { ContourLineLevels = values };
+        contours.Update(points);
+        // The lines are drawn as plain paths with upright labels at the middle of each level's longest path (the
+        // library's own labels follow the line's slope).
+        foreach (var level in contours.Lines.GroupBy(l => l.Z))
+        {
+            foreach (var line in level)
+            {
+                var path = plot.Add.ScatterLine(line.Path.Points.ToArray(), Colors.Black);
+                path.LineWidth = 1.2f;
+                path.MarkerSize = 0;
+            }
+            var longest = level.MaxBy(l => l.Path.Points.Count())!.Path.Points.ToArray();
+            if (longest.Length == 0) continue;
+            var at = longest[longest.Length / 2];
+            var text = plot.Add.Text(TickLabel(level.Key), at.X, at.Y);
+            text.LabelFontName = Meanfield.Output.PlotStyle.FontName;
+            text.LabelFontSize = Meanfield.Output.PlotStyle.TickFontSize - 1;
+            text.LabelBackgroundColor = Colors.White.WithAlpha(0.8);
+            text.LabelAlignment = Alignment.MiddleCenter;
+        }
         return true;
     }
 
