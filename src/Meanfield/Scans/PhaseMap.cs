@@ -52,17 +52,19 @@ public static class PhaseMap
         }
         else
         {
-            var z = new double[ys.Values.Length, xs.Values.Length];
-            for (int a = 0; a < z.GetLength(0); a++) for (int b = 0; b < z.GetLength(1); b++) z[a, b] = double.NaN;
+            // Cells as rectangles rather than a bitmap heatmap, so that .svg and .pdf stay vector.
+            var values = new List<(int I, int J, double V)>();
             foreach (var (row, i, j) in rows)
-                if (row.Result.Converged && ToDouble(color.Value(row)) is double v) z[ys.Values.Length - 1 - j, i] = v;
-            var heat = plot.Add.Heatmap(z);
-            heat.Colormap = new ScottPlot.Colormaps.Viridis();
-            heat.NaNCellColor = Colors.Transparent;
-            heat.Rectangle = new CoordinateRect(xs.Edges[0], xs.Edges[^1], ys.Edges[0], ys.Edges[^1]);
-            var bar = plot.Add.ColorBar(heat);
-            bar.Label = Meanfield.Output.PlotStyle.AxisLabel(colorBy, ColumnUnit(table, colorBy));
-            bar.LabelStyle.FontName = Meanfield.Output.PlotStyle.FontName;
+                if (row.Result.Converged && ToDouble(color.Value(row)) is double v && double.IsFinite(v)) values.Add((i, j, v));
+            double lo = values.Count > 0 ? values.Min(c => c.V) : 0, hi = values.Count > 0 ? values.Max(c => c.V) : 1;
+            if (!(hi > lo)) hi = lo + 1;
+            var scale = new ScottPlot.Colormaps.Viridis();
+            foreach (var (i, j, v) in values) Cell(plot, xs, ys, i, j, scale.GetColor((v - lo) / (hi - lo)));
+            var bar = plot.Add.ColorBar(new ColourScale(scale, lo, hi));
+            bar.Axis.TickGenerator = new ScottPlot.TickGenerators.NumericAutomatic { LabelFormatter = Meanfield.Output.PlotStyle.Number, TargetTickCount = 8 };
+            bar.Axis.TickLabelStyle.FontName = Meanfield.Output.PlotStyle.FontName;
+            bar.Axis.TickLabelStyle.FontSize = Meanfield.Output.PlotStyle.TickFontSize;
+            // The quantity and its unit are named in the heading: ScottPlot sets a bar title over the tick labels.
         }
 
         var failed = rows.Where(r => !r.Row.Result.Converged).ToList();
@@ -93,7 +95,8 @@ public static class PhaseMap
         plot.XLabel(xLog ? $"log10 {xTitle}" : xTitle, Meanfield.Output.PlotStyle.LabelFontSize);
         plot.YLabel(yLog ? $"log10 {yTitle}" : yTitle, Meanfield.Output.PlotStyle.LabelFontSize);
         string subtitle = PhaseMapLabels.Subtitle(table);
-        string heading = options.Title ?? (colorBy == "phase" ? "Phase map" : $"{colorBy} over {xTitle} and {yTitle}");
+        string heading = options.Title ?? (colorBy == "phase" ? "Phase map"
+            : $"{Meanfield.Output.PlotStyle.AxisLabel(colorBy, ColumnUnit(table, colorBy))} over {xTitle} and {yTitle}");
         plot.Title(subtitle.Length > 0 ? heading + "\n" + subtitle : heading, Meanfield.Output.PlotStyle.LabelFontSize);
         plot.Axes.Bottom.TickGenerator = Ticks(xs.Values);
         plot.Axes.Left.TickGenerator = Ticks(ys.Values);
@@ -175,6 +178,12 @@ public static class PhaseMap
 
     /// <summary>A tick label: invariant culture, no thousands separators, no trailing zeros.</summary>
     internal static string TickLabel(double v) => v.ToString("0.######", CultureInfo.InvariantCulture);
+
+    private sealed class ColourScale(IColormap colormap, double lo, double hi) : IHasColorAxis
+    {
+        public IColormap Colormap { get; set; } = colormap;
+        public ScottPlot.Range GetRange() => new(lo, hi);
+    }
 
     private sealed record AxisCoords(double[] Values, double[] Edges);
 

@@ -143,6 +143,7 @@ public static class SurfacePlots
         heat.Rectangle = rect;
         heat.ManualRange = new ScottPlot.Range(bottom, top);
         var bar = plot.Add.ColorBar(heat);
+        bar.Axis.TickGenerator = new ScottPlot.TickGenerators.NumericAutomatic { LabelFormatter = PlotStyle.Number };
         bar.Label = $"log10 {name.Split(' ')[^1]} (states per energy unit)";
         bar.LabelStyle.FontName = PlotStyle.FontName;
     }
