@@ -14,7 +14,7 @@ public static class BandsCommand
         var output = CommonOptions.Out();
         var path = new Option<string>("--path") { Description = "\"auto\" (the lattice's standard path) or labels like \"G X W L G\" (| breaks the path)", DefaultValueFactory = _ => "auto" };
         var points = new Option<int>("--points") { Description = "k-points along the whole path", DefaultValueFactory = _ => 300 };
-        var window = new Option<string[]>("--window") { Description = "Picture's energy window E1 E2 around mu (such as -20 20, or -20meV 20meV; bare numbers in the model's energy unit), or \"all\"; default: the bands next to mu", Arity = new ArgumentArity(1, 2), AllowMultipleArgumentsPerToken = true };
+        var window = new Option<string[]>("--window") { Description = "Picture's energy window E1 E2 around mu (such as -20 20, or -20meV 20meV; bare numbers in the model's energy unit), or \"all\"; default: mu +- 4 times the distance holding 80% of the correlated weight", Arity = new ArgumentArity(1, 2), AllowMultipleArgumentsPerToken = true };
         var weight = new Option<bool>("--no-weight") { Description = "Do not colour the bands by their correlated-orbital weight" };
         var command = new Command("bands", "Band energies along a high-symmetry path (CSV or Parquet by extension) and a picture (PNG next to it)")
             { output, path, points, window, weight };
@@ -43,8 +43,7 @@ public static class BandsCommand
                 var w => throw new UserInputException($"--window {string.Join(" ", w)}: give E1 < E2 around mu, or all"),
             };
             if (parse.GetValue(window) is ["all"]) { var (lo, hi) = bands.EnergyRange(); win = (lo - src.Mu, hi - src.Mu); }
-            BandPlot.Save(bands, picture, title, src.Model.Unit, src.Mu, colourByCorrelatedWeight: !parse.GetValue(weight) && src.Model.Shells.Count > 0, window: win,
-                          highestFilled: src.WholeFilling ? src.OccupiedBands - 1 : null);
+            BandPlot.Save(bands, picture, title, src.Model.Unit, src.Mu, colourByCorrelatedWeight: !parse.GetValue(weight) && src.Model.Shells.Count > 0, window: win);
             o.WriteLine($"wrote {outPath} and {picture} ({bands.Energies().GetLength(0)} k-points, {bands.Energies().GetLength(1)} bands)");
             return ExitCodes.Success;
         });

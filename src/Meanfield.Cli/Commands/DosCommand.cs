@@ -71,7 +71,7 @@ public static class DosCommand
 
             DosTableWriter.Write(dos, mu, model.Unit, outPath, [new("mesh", kmesh.ToString()), .. ResultProvenance.Of(src)]);
             var picture = Path.ChangeExtension(outPath, ".png");
-            DosPlot.Save(dos, mu, model.Unit, picture, $"{model.Name}: {(src.Origin == Solutions.SolutionOrigin.BareModel ? "bare" : "renormalized")} DOS");
+            DosPlot.Save(dos, mu, model.Unit, picture, $"{model.Name}: {(src.Origin == Solutions.SolutionOrigin.BareModel ? "bare" : "renormalized")} DOS", win is null ? null : (win[0] - mu, win[1] - mu));
 
             var u = model.Unit.Symbol();
             double fu = model.FormulaUnitsPerCell;
