@@ -27,16 +27,13 @@ public static class DipoleCommand
             var src = solution.Resolve(parse, o);
             var model = src.Model;
             if (model.IsMomentumFree) throw new UserInputException($"{model.SourcePath}: a momentum-free lattice has no Berry curvature");
-            double mu0 = ResponseOptions.ReferenceMu(src);
+            double mu0 = src.Mu;
             var (mu, t, mesh) = response.Parse(parse, mu0, model.Unit, positiveTemperature: true);
 
             var r = CurvatureDipole.Compute(src.Hamiltonian, mu, t, mesh);
             var cone = ConeDipole.ForSolution(src);
 
-            var meta = new Dictionary<string, string>
-            {
-                ["model"] = model.Name, ["source"] = ResultProvenance.SourceFile(src), ["source_kind"] = src.OriginText, ["model_sha256"] = Provenance.Hash(model.SourceText), ["tool_version"] = Provenance.ToolVersion,
-            };
+            var meta = new Dictionary<string, string>(ResultProvenance.Of(src));
             if (cone is { Complete: true }) meta["cone_limit_D"] = string.Join(" ", cone.Tensor.Select(x => x.ToString("R", System.Globalization.CultureInfo.InvariantCulture)));
             ResponseTables.WriteDipole(r, outPath, mu0, model.Unit, meta);
             var picture = Path.ChangeExtension(outPath, ".png");

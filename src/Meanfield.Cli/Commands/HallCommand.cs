@@ -27,15 +27,12 @@ public static class HallCommand
             var src = solution.Resolve(parse, o);
             var model = src.Model;
             if (model.IsMomentumFree) throw new UserInputException($"{model.SourcePath}: a momentum-free lattice has no Berry curvature");
-            double mu0 = ResponseOptions.ReferenceMu(src);
+            double mu0 = src.Mu;
             var (mu, t, mesh) = response.Parse(parse, mu0, model.Unit, positiveTemperature: false);
 
             var r = AnomalousHall.Compute(src.Hamiltonian, mu, t, mesh);
 
-            var meta = new Dictionary<string, string>
-            {
-                ["model"] = model.Name, ["source"] = ResultProvenance.SourceFile(src), ["source_kind"] = src.OriginText, ["model_sha256"] = Provenance.Hash(model.SourceText), ["tool_version"] = Provenance.ToolVersion,
-            };
+            var meta = new Dictionary<string, string>(ResultProvenance.Of(src));
             ResponseTables.WriteHall(r, outPath, mu0, model.Unit, meta);
             var picture = Path.ChangeExtension(outPath, ".png");
             ResponsePlots.SaveHall(r, picture, $"{model.Name}: anomalous Hall conductivity", mu0, model.Unit);
