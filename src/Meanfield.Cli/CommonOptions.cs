@@ -32,6 +32,31 @@ public static class CommonOptions
 
     public static Option<string> Out(bool required = true) => new("--out", "-o") { Description = "Output file", Required = required };
 
+    /// <summary>
+    /// Checks a table's --out: .csv or .parquet by extension, or "-" for CSV on standard output. Returns true for "-":
+    /// then no picture is drawn and the command's messages go to standard error, so the table can be piped.
+    /// </summary>
+    /// <exception cref="UserInputException">Another extension.</exception>
+    public static bool CheckTableOut(string outPath)
+    {
+        if (Output.AtomicFile.IsStandardOutput(outPath)) return true;
+        if (Path.GetExtension(outPath).ToLowerInvariant() is not (".csv" or ".parquet"))
+            throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name, or - for CSV on standard output");
+        return false;
+    }
+
+    /// <summary>"wrote F.csv and F.png", or "wrote the table to standard output" for --out -.</summary>
+    public static string Wrote(string outPath, string? picture) =>
+        Output.AtomicFile.IsStandardOutput(outPath) ? "wrote the table to standard output" : picture is null ? $"wrote {outPath}" : $"wrote {outPath} and {picture}";
+
+    /// <summary>The picture drawn beside a table (.png), or null when the table goes to standard output.</summary>
+    public static string? PictureBeside(string outPath) =>
+        Output.AtomicFile.IsStandardOutput(outPath) ? null : Path.ChangeExtension(outPath, ".png");
+
+    /// <summary>Where a command's messages go: standard error when its data goes to standard output (--out -).</summary>
+    public static TextWriter Messages(ParseResult parse, string outPath) =>
+        Output.AtomicFile.IsStandardOutput(outPath) ? parse.InvocationConfiguration.Error : parse.InvocationConfiguration.Output;
+
     public static Dictionary<string, string> ParseSets(string[]? sets)
     {
         var result = new Dictionary<string, string>(StringComparer.Ordinal);

@@ -21,10 +21,9 @@ public static class BandsCommand
         solution.AddTo(command);
         command.SetAction(parse =>
         {
-            var o = parse.InvocationConfiguration.Output;
             var outPath = parse.GetValue(output)!;
-            var ext = Path.GetExtension(outPath).ToLowerInvariant();
-            if (ext is not (".csv" or ".parquet")) throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name");
+            var o = CommonOptions.Messages(parse, outPath);
+            CommonOptions.CheckTableOut(outPath);
             int count = parse.GetValue(points);
             if (count < 2) throw new UserInputException($"--points {count}: need at least 2");
             CommonOptions.RefuseOverwrite(parse.GetValue(solution.Input)!, [outPath, Path.ChangeExtension(outPath, ".png")]);
@@ -34,12 +33,12 @@ public static class BandsCommand
             var bandPath = spec == "auto" ? BandPath.Default(src.Model.Lattice) : BandPath.Parse(spec, src.Model.Lattice);
             var bands = BandStructure.Compute(src.Hamiltonian, bandPath.Sample(count));
             BandTableWriter.Write(bands, outPath, ResultProvenance.Of(src), src.Mu);
-            var picture = Path.ChangeExtension(outPath, ".png");
+            var picture = CommonOptions.PictureBeside(outPath);
             var title = $"{src.Model.Name}: {(src.Origin == Solutions.SolutionOrigin.BareModel ? "bare bands" : "renormalized bands")}";
             var win = CommonOptions.ParseWindow(parse.GetValue(window), src.Model.Unit);
             if (parse.GetValue(window) is ["all"]) { var (lo, hi) = bands.EnergyRange(); win = (lo - src.Mu, hi - src.Mu); }
-            BandPlot.Save(bands, picture, title, src.Model.Unit, src.Mu, colourByCorrelatedWeight: !parse.GetValue(weight) && src.Model.Shells.Count > 0, window: win);
-            o.WriteLine($"wrote {outPath} and {picture} ({bands.Energies().GetLength(0)} k-points, {bands.Energies().GetLength(1)} bands)");
+            if (picture is not null) BandPlot.Save(bands, picture, title, src.Model.Unit, src.Mu, colourByCorrelatedWeight: !parse.GetValue(weight) && src.Model.Shells.Count > 0, window: win);
+            o.WriteLine($"{CommonOptions.Wrote(outPath, picture)} ({bands.Energies().GetLength(0)} k-points, {bands.Energies().GetLength(1)} bands)");
             return ExitCodes.Success;
         });
         return command;

@@ -25,9 +25,9 @@ public static class CurvatureCommand
         solution.AddTo(command);
         command.SetAction(parse =>
         {
-            var o = parse.InvocationConfiguration.Output;
             var outPath = parse.GetValue(output)!;
-            if (Path.GetExtension(outPath).ToLowerInvariant() is not (".csv" or ".parquet")) throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name");
+            var o = CommonOptions.Messages(parse, outPath);
+            CommonOptions.CheckTableOut(outPath);
             var s = parse.GetValue(sides)!;
             var request = new CurvatureRequest
             {
@@ -42,13 +42,13 @@ public static class CurvatureCommand
             if (study.Metal)
                 parse.InvocationConfiguration.Error.WriteLine($"warning: bands {study.Occupied - 1} and {study.Occupied} overlap (a metal): the curvature of the {study.Occupied} lowest bands is not that of the occupied states.");
             var meta = new Dictionary<string, string>(ResultProvenance.Of(src)) { ["nodes_in_plane"] = study.NodesText };
-            var picture = Path.ChangeExtension(outPath, ".png");
+            var picture = CommonOptions.PictureBeside(outPath);
             CurvatureTableWriter.Write(study.Map, outPath, meta);
-            CurvaturePlot.Save(study.Map, study.NodesInPlane, picture, $"{src.Model.Name}: Berry curvature, {study.Occupied} lowest bands");
+            if (picture is not null) CurvaturePlot.Save(study.Map, study.NodesInPlane, picture, $"{src.Model.Name}: Berry curvature, {study.Occupied} lowest bands");
             var map = study.Map;
             o.WriteLine(string.Create(CultureInfo.InvariantCulture, $"plane normal {map.Normal}; total flux / 2pi = {map.TotalFluxOver2Pi:F4}{(map.IsFullTorus ? $" (Chern number {map.ChernNumber})" : "")}"));
             o.WriteLine($"{study.NodesInPlane.Count} node(s) in the plane" + (study.NodesInPlane.Count > 0 ? ": " + study.NodesText : ""));
-            o.WriteLine($"wrote {outPath} and {picture} ({request.Grid}x{request.Grid} plaquettes)");
+            o.WriteLine($"{CommonOptions.Wrote(outPath, picture)} ({request.Grid}x{request.Grid} plaquettes)");
             return ExitCodes.Success;
         });
         return command;

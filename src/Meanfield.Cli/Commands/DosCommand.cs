@@ -20,9 +20,9 @@ public static class DosCommand
             { input, set, temperature, solverMesh, output, mesh, window, step, gaussian, bare };
         command.SetAction(parse =>
         {
-            var o = parse.InvocationConfiguration.Output;
             var outPath = parse.GetValue(output)!;
-            if (Path.GetExtension(outPath).ToLowerInvariant() is not (".csv" or ".parquet")) throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name");
+            var o = CommonOptions.Messages(parse, outPath);
+            CommonOptions.CheckTableOut(outPath);
             CommonOptions.RefuseOverwrite(parse.GetValue(input)!, [outPath, Path.ChangeExtension(outPath, ".png")]);
             // Units are read once the model (and its energy unit) is known; the mesh is checked before the solve.
             new DosRequest { Mesh = parse.GetValue(mesh) }.Validate();
@@ -39,13 +39,13 @@ public static class DosCommand
                 parse.InvocationConfiguration.Error.WriteLine($"warning: the step is finer than the mean level spacing {study.LevelSpacing:G4} of mesh {study.Mesh}; fine structure below it is interpolation. Try --dos-mesh {suggest}.");
             double mu = src.Mu;
             DosTableWriter.Write(study.Dos, mu, unit, outPath, [new("mesh", study.Mesh.ToString()), .. ResultProvenance.Of(src)]);
-            var picture = Path.ChangeExtension(outPath, ".png");
-            DosPlot.Save(study.Dos, mu, unit, picture, $"{src.Model.Name}: {(src.Origin == Solutions.SolutionOrigin.BareModel ? "bare" : "renormalized")} DOS", request.WindowAroundMu);
+            var picture = CommonOptions.PictureBeside(outPath);
+            if (picture is not null) DosPlot.Save(study.Dos, mu, unit, picture, $"{src.Model.Name}: {(src.Origin == Solutions.SolutionOrigin.BareModel ? "bare" : "renormalized")} DOS", request.WindowAroundMu);
             var (u, fu, at) = (unit.Symbol(), src.Model.FormulaUnitsPerCell, study.AtMu);
             var inv = CultureInfo.InvariantCulture;
             o.WriteLine(string.Create(inv, $"mu = {mu:G8} {u} ({SolutionDocument.RuleName(src.MuRule)}, {src.OriginText})"));
             o.WriteLine(string.Create(inv, $"DOS at mu: total {at.Total:G6}, correlated {at.Correlated:G6} states/{u} per cell; total {at.Total / fu:G6}, correlated {at.Correlated / fu:G6} per formula unit"));
-            o.WriteLine($"wrote {outPath} and {picture} ({study.Dos.Energies.Length} energies, {study.Dos.Method})");
+            o.WriteLine($"{CommonOptions.Wrote(outPath, picture)} ({study.Dos.Energies.Length} energies, {study.Dos.Method})");
             return ExitCodes.Success;
         });
         return command;

@@ -130,6 +130,25 @@ public sealed class SpectraCommandTests
     }
 
     [Fact]
+    public void DashWritesTheResultToStandardOutputAndNothingElse()
+    {
+        // "-" as a file name means standard output (common practice of command-line tools); the messages go to
+        // standard error so the data can be piped, and no picture or file is written.
+        using var cli = new CliHarness();
+        var model = cli.Write("fkm.toml", CliHarness.FuKaneMeleToml);
+        Assert.Equal(ExitCodes.Success, cli.Run("nodes", model, "--set", "dt=0.3", "--set", "m=0.6", "--search-mesh", "8", "--out", "-"));
+        using (var doc = JsonDocument.Parse(cli.Out))
+            Assert.Equal("meanfield-nodes/2", doc.RootElement.GetProperty("format").GetString());
+        Assert.Contains("standard output", cli.Err);
+        Assert.Equal(ExitCodes.Success, cli.Run("dos", model, "--set", "dt=0.3", "--set", "m=1.5", "--dos-mesh", "6", "--window", "-0.5", "0.5", "--step", "0.05", "--out", "-"));
+        var lines = cli.Out.Split('\n', StringSplitOptions.RemoveEmptyEntries);
+        Assert.StartsWith("#", lines[0]);
+        Assert.Equal(21, lines.Count(l => !l.StartsWith('#')) - 1); // 21 energies after the header row
+        Assert.Contains("DOS at mu", cli.Err);
+        Assert.Equal(["fkm.toml"], cli.Files());
+    }
+
+    [Fact]
     public void DosWindowIsRelativeToMuAndReadsUnits()
     {
         // The same window written in the model's unit (eV) and in meV gives the same energies: 1 eV = 1000 meV
