@@ -9,7 +9,7 @@ namespace Meanfield.Scans;
 /// any text column), a colour scale with a colour bar for a numeric column, optional contour lines of a numeric column
 /// named in the legend, and hatched grey cells for points that did not converge. Axes are titled with their units
 /// (<see cref="PhaseMapLabels.AxisTitle"/>), ticks sit at round values inside the grid's range, and the subtitle names
-/// model, temperature and mesh. Log-spaced axes are drawn as log10. Written as .png, .svg or .pdf by extension.
+/// model, temperature and mesh. Log-spaced axes are drawn on a log scale labelled with the values. Written as .png, .svg or .pdf by extension.
 /// </summary>
 public static class PhaseMap
 {
@@ -92,14 +92,14 @@ public static class PhaseMap
             plot.Legend.FontSize = Meanfield.Output.PlotStyle.TickFontSize;
             plot.ShowLegend(Edge.Right);
         }
-        plot.XLabel(xLog ? $"log10 {xTitle}" : xTitle, Meanfield.Output.PlotStyle.LabelFontSize);
-        plot.YLabel(yLog ? $"log10 {yTitle}" : yTitle, Meanfield.Output.PlotStyle.LabelFontSize);
+        plot.XLabel(xLog ? $"{xTitle}, log scale" : xTitle, Meanfield.Output.PlotStyle.LabelFontSize);
+        plot.YLabel(yLog ? $"{yTitle}, log scale" : yTitle, Meanfield.Output.PlotStyle.LabelFontSize);
         string subtitle = PhaseMapLabels.Subtitle(table);
         string heading = options.Title ?? (colorBy == "phase" ? "Phase map"
             : $"{Meanfield.Output.PlotStyle.AxisLabel(colorBy, ColumnUnit(table, colorBy))} over {xTitle} and {yTitle}");
         plot.Title(subtitle.Length > 0 ? heading + "\n" + subtitle : heading, Meanfield.Output.PlotStyle.LabelFontSize);
-        plot.Axes.Bottom.TickGenerator = Ticks(xs.Values);
-        plot.Axes.Left.TickGenerator = Ticks(ys.Values);
+        plot.Axes.Bottom.TickGenerator = xLog ? LogTicks(xs.Values) : Ticks(xs.Values);
+        plot.Axes.Left.TickGenerator = yLog ? LogTicks(ys.Values) : Ticks(ys.Values);
         plot.Axes.Bottom.TickLabelStyle.FontSize = Meanfield.Output.PlotStyle.TickFontSize;
         plot.Axes.Left.TickLabelStyle.FontSize = Meanfield.Output.PlotStyle.TickFontSize;
         plot.HideGrid();
@@ -160,6 +160,34 @@ public static class PhaseMap
         var ticks = new ScottPlot.TickGenerators.NumericManual();
         foreach (double t in TickPositions(values[0], values[^1])) ticks.AddMajor(t, TickLabel(t));
         return ticks;
+    }
+
+    /// <summary>
+    /// Ticks of a log-spaced axis (plotted as log10 of the value) labelled with the values themselves: 1, 2 and 5 times
+    /// each power of ten inside the grid, minor ticks at the other integer multiples (common practice for log axes).
+    /// </summary>
+    private static ScottPlot.TickGenerators.NumericManual LogTicks(double[] log10Values)
+    {
+        var ticks = new ScottPlot.TickGenerators.NumericManual();
+        foreach (var (position, major) in LogTickPositions(log10Values[0], log10Values[^1]))
+        {
+            if (major) ticks.AddMajor(position, TickLabel(Math.Pow(10, position)));
+            else ticks.AddMinor(position);
+        }
+        return ticks;
+    }
+
+    /// <summary>log10 positions of the ticks of <see cref="LogTicks"/> between two log10 values; major for 1, 2 and 5 times a power of ten.</summary>
+    internal static IReadOnlyList<(double Log10, bool Major)> LogTickPositions(double lo, double hi)
+    {
+        var list = new List<(double, bool)>();
+        for (int decade = (int)Math.Floor(lo) - 1; decade <= (int)Math.Ceiling(hi); decade++)
+            for (int m = 1; m <= 9; m++)
+            {
+                double v = Math.Log10(m) + decade;
+                if (v >= lo - 1e-9 && v <= hi + 1e-9) list.Add((v, m is 1 or 2 or 5));
+            }
+        return list;
     }
 
     /// <summary>Round tick positions from <paramref name="lo"/> to <paramref name="hi"/> (see <see cref="Ticks"/>).</summary>

@@ -87,4 +87,15 @@ public sealed class PhaseMapLabelTests
         Assert.Equal("5000", PhaseMap.TickLabel(5000));   // no thousands separators
         Assert.Equal("0.25", PhaseMap.TickLabel(0.25));
     }
+
+    // A log axis from 5 to 1000 (the T axis of the shipped T-V scan) carries major ticks at 1, 2 and 5 times each
+    // power of ten inside it and minor ticks at the other multiples (common practice for logarithmic axes).
+    [Fact]
+    public void Log_axes_have_major_ticks_at_one_two_five_per_decade()
+    {
+        var ticks = PhaseMap.LogTickPositions(Math.Log10(5), Math.Log10(1000));
+        var major = ticks.Where(t => t.Major).Select(t => Math.Round(Math.Pow(10, t.Log10), 6)).ToArray();
+        Assert.Equal([5.0, 10, 20, 50, 100, 200, 500, 1000], major);
+        Assert.Equal(4 + 6 + 6 + 0, ticks.Count(t => !t.Major)); // 6..9, 30,40,60..90, 300,400,600..900
+    }
 }
