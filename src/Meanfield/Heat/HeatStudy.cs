@@ -48,7 +48,7 @@ public sealed record HeatStudyRequest
             throw new RequestError($"--tmin {MinTemperatureK:G6} K, --tmax {MaxTemperatureK:G6} K: need 0 < lowest < highest");
         if (Points < 3) throw new RequestError($"--points {Points}: need at least 3 temperatures");
         if (FullMeanField && MeanFieldPoints < 5) throw new RequestError($"--mf-points {MeanFieldPoints}: need at least 5 mean-field temperatures");
-        if (FullMeanField && Settings is null) throw new ArgumentException("the full mean field needs the solver settings (a caller's omission, not the user's)");
+        if (FullMeanField && Settings is null) throw new ArgumentException("the full mean field needs the solver settings (HeatStudyRequest.Settings)");
         if (DosMesh is { } m && m < 4) throw new RequestError($"--dos-mesh {m}: need at least 4");
         if ((DebyeTemperatureK is null) != (AtomsPerFormulaUnit is null)) throw new RequestError("--debye and --atoms: a Debye term needs both its temperature and the atoms per formula unit");
         if (DebyeTemperatureK is { } th && (!(th > 0) || !(AtomsPerFormulaUnit > 0))) throw new RequestError($"--debye {th:G6} K, --atoms {AtomsPerFormulaUnit}: both must be positive");
