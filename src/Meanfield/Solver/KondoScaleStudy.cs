@@ -39,7 +39,7 @@ public static class KondoScaleStudy
     /// <param name="settings">Solver settings: mesh, shift, symmetry, starting temperature.</param>
     /// <param name="relativeTolerance">Relative width at which the bisection stops (default 1e-5, positive).</param>
     /// <param name="progress">Told every temperature tried, or null.</param>
-    /// <exception cref="ArgumentException">The model has no correlated shell or settings are invalid.</exception>
+    /// <exception cref="RequestError">The model has no correlated shell, or its shells cannot be solved (see <see cref="SaddlePointSolver"/>).</exception>
     public static KondoScaleReport Run(BoundModel model, SolverSettings settings, double relativeTolerance = 1e-5, IProgress<string>? progress = null)
     {
         double t0 = settings.Temperature > 0 ? settings.Temperature : 1e-3;

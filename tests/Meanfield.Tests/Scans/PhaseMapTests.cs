@@ -47,7 +47,7 @@ public sealed class PhaseMapTests : IDisposable
         Assert.DoesNotContain("PNG", text[..Math.Min(200, text.Length)]);
         Assert.Contains("Weyl semimetal", text); // readable phase names in the legend, not file forms
         string gif = Path.Combine(_dir, "m.gif");
-        Assert.ThrowsAny<ArgumentException>(() => PhaseMap.Save(data, "V", "ratio", "phase", gif));
+        Assert.Throws<Meanfield.Output.OutputPathException>(() => PhaseMap.Save(data, "V", "ratio", "phase", gif));
         Assert.False(File.Exists(gif));
     }
 }
