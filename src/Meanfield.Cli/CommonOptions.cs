@@ -159,8 +159,7 @@ public static class CommonOptions
             MaxIterations = maxIterations ?? hints?.MaxIterations ?? 100,
             Symmetry = hints?.Symmetry is { } sym ? Symmetry.SymmetryRequest.Parse(sym) : Symmetry.SymmetryRequest.Auto,
         };
-        try { settings.Validate(); }
-        catch (ArgumentException e) { throw new UserInputException(e.Message); }
+        settings.Validate();
         return settings;
     }
 }

@@ -50,8 +50,7 @@ internal sealed class ResponseOptions
             ThermalWidth = t.Any(x => x > 0) ? t.Where(x => x > 0).Min() : null,
             RefinementWindow = (mu[0] - 10 * tMax - 1e-9 * Math.Abs(mu0), mu[^1] + 10 * tMax + 1e-9 * Math.Abs(mu0)),
         };
-        try { mesh.Validate(); }
-        catch (ArgumentOutOfRangeException e) { throw new UserInputException(e.Message.Split(" (Parameter")[0]); }
+        mesh.Validate();
         return (mu, t, mesh);
     }
 
