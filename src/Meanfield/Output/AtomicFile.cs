@@ -87,18 +87,9 @@ public static class AtomicFile
     }
 
     /// <summary>Passes writes through and ignores Dispose, so standard output stays open for later lines.</summary>
-    private sealed class KeepOpenStream(Stream inner) : Stream
+    private sealed class KeepOpenStream(Stream inner) : WriteOnlyStream
     {
-        public override bool CanRead => false;
-        public override bool CanSeek => false;
-        public override bool CanWrite => true;
-        public override long Length => throw new NotSupportedException();
-        public override long Position { get => throw new NotSupportedException(); set => throw new NotSupportedException(); }
         public override void Flush() => inner.Flush();
-        public override int Read(byte[] buffer, int offset, int count) => throw new NotSupportedException();
-        public override long Seek(long offset, SeekOrigin origin) => throw new NotSupportedException();
-        public override void SetLength(long value) => throw new NotSupportedException();
-        public override void Write(byte[] buffer, int offset, int count) => inner.Write(buffer, offset, count);
         public override void Write(ReadOnlySpan<byte> buffer) => inner.Write(buffer);
         protected override void Dispose(bool disposing) { if (disposing) inner.Flush(); }
     }
