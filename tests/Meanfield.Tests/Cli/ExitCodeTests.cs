@@ -73,6 +73,16 @@ public sealed class ExitCodeTests
         Assert.Contains("--kmesh 1", cli.Err);
     }
 
+    [Theory]
+    [InlineData("-1")]
+    [InlineData("1e-300")] // below the double spacing the bisection's midpoint equals an end: it would never stop
+    public void Kondo_scale_with_a_tolerance_it_cannot_reach_exits_2_instead_of_running_forever(string tolerance)
+    {
+        using var cli = new CliHarness();
+        Assert.Equal(ExitCodes.BadInput, cli.Run("kondo-scale", CliHarness.ShippedModel("kondo-insulator-sc.toml"), "--mesh", "4", "--relative-tolerance", tolerance));
+        Assert.Contains("--relative-tolerance", cli.Err);
+    }
+
     [Fact]
     public void An_argument_exception_escaping_a_command_is_an_internal_error_not_bad_input()
     {
