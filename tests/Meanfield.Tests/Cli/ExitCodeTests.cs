@@ -73,6 +73,17 @@ public sealed class ExitCodeTests
         Assert.Contains("--kmesh 1", cli.Err);
     }
 
+    [Fact]
+    public void Hall_window_reaching_infinity_exits_2_naming_the_window()
+    {
+        using var cli = new CliHarness();
+        var model = cli.Write("fkm.toml", CliHarness.FuKaneMeleToml);
+        Assert.Equal(ExitCodes.BadInput, cli.Run("hall", model, "--window", "-1", "Infinity", "--kmesh", "2", "--out", cli.PathOf("h.csv")));
+        Assert.Contains("--window", cli.Err);
+        Assert.Contains("finite", cli.Err);
+        Assert.Equal(["fkm.toml"], cli.Files());
+    }
+
     [Theory]
     [InlineData("-1")]
     [InlineData("1e-300")] // below the double spacing the bisection's midpoint equals an end: it would never stop
