@@ -74,6 +74,27 @@ public sealed class ExitCodeTests
     }
 
     [Fact]
+    public void Hall_window_reaching_infinity_exits_2_naming_the_window()
+    {
+        using var cli = new CliHarness();
+        var model = cli.Write("fkm.toml", CliHarness.FuKaneMeleToml);
+        Assert.Equal(ExitCodes.BadInput, cli.Run("hall", model, "--window", "-1", "Infinity", "--kmesh", "2", "--out", cli.PathOf("h.csv")));
+        Assert.Contains("--window", cli.Err);
+        Assert.DoesNotContain("internal error", cli.Err);
+        Assert.Equal(["fkm.toml"], cli.Files());
+    }
+
+    [Theory]
+    [InlineData("-1")]
+    [InlineData("1e-300")] // below the double spacing the bisection's midpoint equals an end: it would never stop
+    public void Kondo_scale_with_a_tolerance_it_cannot_reach_exits_2_instead_of_running_forever(string tolerance)
+    {
+        using var cli = new CliHarness();
+        Assert.Equal(ExitCodes.BadInput, cli.Run("kondo-scale", CliHarness.ShippedModel("kondo-insulator-sc.toml"), "--mesh", "4", "--relative-tolerance", tolerance));
+        Assert.Contains("--relative-tolerance", cli.Err);
+    }
+
+    [Fact]
     public void An_argument_exception_escaping_a_command_is_an_internal_error_not_bad_input()
     {
         var boom = new Command("boom", "test only: a library precondition our own code violated");
