@@ -53,8 +53,8 @@ public static class HeatCommand
                 ReferencePath = parse.GetValue(reference), FullMeanField = parse.GetValue(full), MeanFieldPoints = parse.GetValue(mfPoints),
                 DosMesh = parse.GetValue(dosMesh),
             };
-            request.Validate();
             request = request with { Settings = CommonOptions.Settings(src.Model, parse.GetValue(temperature), parse.GetValue(mesh)) };
+            request.Validate();
             HeatStudyResult result;
             try { result = HeatStudy.Run(src.Model, src.Hamiltonian, src.Mu, request); }
             catch (InvalidOperationException e)
