@@ -51,7 +51,7 @@ public class FiniteUModelTests
     }
 
     [Fact]
-    public void Lattice_solver_refuses_finite_U_instead_of_ignoring_it()
+    public void Lattice_solver_refuses_finite_U_mixed_with_infinite_U()
     {
         var model = ModelText.Bind(WithU("300"));
         var ex = Assert.Throws<ArgumentException>(() => new SaddlePointSolver(model, new SolverSettings()));
