@@ -49,12 +49,4 @@ public class FiniteUModelTests
         Assert.Equal("site[1].shell.U", e.Field);
         Assert.Contains("N = 2", e.Message);
     }
-
-    [Fact]
-    public void Lattice_solver_refuses_finite_U_mixed_with_infinite_U()
-    {
-        var model = ModelText.Bind(WithU("300"));
-        var ex = Assert.Throws<ArgumentException>(() => new SaddlePointSolver(model, new SolverSettings()));
-        Assert.Contains("finite U", ex.Message);
-    }
 }
