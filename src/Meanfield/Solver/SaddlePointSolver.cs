@@ -241,15 +241,15 @@ public sealed partial class SaddlePointSolver
     private StateTable? _lastTable;
 
     /// <summary>
-    /// For checks: the analytic Jacobian of the scaled residuals at x = (r, lambda) and a finite-difference one in
-    /// y = (ln r, lambda/E0): central differences with steps h and h/2 combined by Richardson extrapolation (error O(h^4)),
-    /// both row-major 2G x 2G. Null analytic when unavailable.
+    /// For checks: the analytic Jacobian of the scaled residuals at x = (r, lambda) (at finite U x = (e, d, lambda)) and a
+    /// finite-difference one in y = (ln r, lambda/E0) (at finite U y = (ln(e + d), d/(e + d), lambda/E0)): central differences with steps h and h/2 combined by Richardson extrapolation (error O(h^4)),
+    /// both row-major (2G or 3G squared). Null analytic when unavailable.
     /// </summary>
     internal (double[]? Analytic, double[] Numeric) JacobianCheck(double[] x, double step = 1e-5)
     {
         var y = ToIterationVector(x);
         var (res, fill) = EvaluateLog(y);
-        var analytic = AnalyticJacobian(y, res, fill);
+        var analytic = _u is null ? AnalyticJacobian(y, res, fill) : AnalyticJacobianFinite(y, res, fill);
         int n = y.Length;
         var numeric = new double[n * n];
         for (int c = 0; c < n; c++)
