@@ -14,7 +14,8 @@ namespace Meanfield.Solver;
 ///   &lt;dH_MF/dr_g&gt; + 2 lambda_g r_g = 0  (dF/dr_g = 0, Hellmann-Feynman)
 /// per shell, with mu fixed by the electron count at every evaluation (<see cref="BandFilling"/>). The 2G unknowns
 /// (r, lambda) are iterated by Broyden's method (Broyden, Math. Comp. 19, 577 (1965)) from a finite-difference
-/// Jacobian, with a backtracking line search; the Jacobian is rebuilt when a step fails.
+/// Jacobian, with a backtracking line search; the Jacobian is rebuilt when a step fails. Models whose shells all have a
+/// finite U are solved by the four-boson equations of SaddlePointSolver.FiniteU.cs through the same iteration.
 /// </summary>
 public sealed partial class SaddlePointSolver
 {
