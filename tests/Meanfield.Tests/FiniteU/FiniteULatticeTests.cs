@@ -110,6 +110,45 @@ public class FiniteULatticeTests(ITestOutputHelper output)
         Assert.Equal(derived, slope, 0.02 * derived);
     }
 
+    /// <summary>
+    /// Particle-hole symmetry: the flat band with two electrons per site and eps_f = -U/2 (mu = 0) is symmetric under
+    /// particle-hole exchange, which maps n_f to 2 - n_f and e to d, so the saddle point has n_f = 1 and e = d
+    /// (common practice; in the Kondo-regime derivation above this is the share d/(e + d) = -eps_f/U = 1/2).
+    /// </summary>
+    [Theory]
+    [InlineData(1.0)]
+    [InlineData(3.0)]
+    public void Symmetric_point_has_one_f_electron_and_equal_empty_and_double_bosons(double u)
+    {
+        var model = WithU(TestModels.LocalHybridization(LatticeKind.FlatDos, 1, 0.3, -u / 2, 2, electrons: 2), u);
+        var sp = new SaddlePointSolver(model, new SolverSettings { Temperature = 0, Tolerance = 1e-12, DosNodes = 4096 }).Solve();
+        Assert.True(sp.Converged, string.Join(" ", sp.Notes));
+        var g = sp.Groups[0];
+        var b = g.Bosons!.Value;
+        output.WriteLine($"U = {u}: n_f = {g.FOccupation:R}, e = {b.E:R}, d = {b.D:R}, z = {g.Z:G6}, level - mu = {g.RenormalizedLevel:G3}");
+        Assert.Equal(1.0, g.FOccupation, 1e-9);
+        Assert.Equal(b.E, b.D, 1e-9);
+        Assert.Equal(0.0, g.RenormalizedLevel, 1e-9);
+    }
+
+    /// <summary>
+    /// U far above every other energy: the double occupancy vanishes and z tends to the U = infinity value of the
+    /// four-boson factor, z = (1 - n)/(1 - n/2) (Kotliar &amp; Ruckenstein 1986, Eq. 5 with d = 0; the Gutzwiller factor),
+    /// not the infinite-U boson's r^2 = 1 - n (the normalization difference explained in models/README.md).
+    /// </summary>
+    [Fact]
+    public void Very_large_U_has_no_double_occupancy_and_the_Gutzwiller_factor()
+    {
+        var model = WithU(TestModels.LocalHybridization(LatticeKind.FlatDos, 1, 0.4, -0.2, 2, electrons: 1.6), 1e6);
+        var sp = new SaddlePointSolver(model, new SolverSettings { Temperature = 0.002, Tolerance = 1e-12, DosNodes = 4096 }).Solve();
+        Assert.True(sp.Converged, string.Join(" ", sp.Notes));
+        var g = sp.Groups[0];
+        double n = g.FOccupation;
+        output.WriteLine($"n_f = {n:R}, d^2 = {g.Bosons!.Value.D * g.Bosons!.Value.D:G3}, z = {g.Z:R}, (1 - n)/(1 - n/2) = {(1 - n) / (1 - n / 2):R}, 1 - n = {1 - n:R}");
+        Assert.InRange(g.Bosons!.Value.D * g.Bosons!.Value.D, 0, 1e-6);
+        Assert.Equal((1 - n) / (1 - n / 2), g.Z, 1e-5);
+    }
+
     /// <summary>Shells at finite and infinite U in one model are refused (one mean field per model).</summary>
     [Fact]
     public void Mixed_finite_and_infinite_U_is_refused()
