@@ -10,6 +10,8 @@ public static class Runner
     {
         var output = stdout ?? Console.Out;
         var error = stderr ?? Console.Error;
+        // `--out -` writes to this run's standard output: the process's own, or the captured writer of a test or host.
+        Output.AtomicFile.StandardOutput = ReferenceEquals(output, Console.Out) ? Console.OpenStandardOutput : () => new Display.TextWriterStream(output);
         try
         {
             // The version and the help speak of the program by its command name and its one version string.

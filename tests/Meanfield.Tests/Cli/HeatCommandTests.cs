@@ -35,7 +35,7 @@ public class HeatCommandTests : IDisposable
     public void FitWindowWithTooFewPointsExitsTwoSayingHowManyAreNeeded()
     {
         var outFile = Path.Combine(_dir, "heat.csv");
-        var (code, _, err) = Run(Model("heavy-metal-cubic.toml"), "--tmin", "1K", "--tmax", "5K", "--points", "5",
+        var (code, _, err) = Run(Model("heavy-metal-cubic.toml"), "--tmin", "1K", "--tmax", "5K", "--temperature-points", "5",
                                  "--dos-mesh", "8", "--fit-window", "1K", "1.01K", "--out", outFile);
         Assert.Equal(ExitCodes.BadInput, code);
         Assert.Contains("at least 3 points", err);
@@ -47,7 +47,7 @@ public class HeatCommandTests : IDisposable
     public void WritesTableResidualsAndPictures()
     {
         var outFile = Path.Combine(_dir, "heat.csv");
-        var (code, stdout, err) = Run(Model("heavy-metal-cubic.toml"), "--tmin", "0.5K", "--tmax", "10K", "--points", "12", "--log",
+        var (code, stdout, err) = Run(Model("heavy-metal-cubic.toml"), "--tmin", "0.5K", "--tmax", "10K", "--temperature-points", "12", "--log",
                                       "--dos-mesh", "12", "--measured", Path.Combine(ModelText.RepositoryRoot(), "models", "measured", "demo-heavy-metal-heat.csv"),
                                       "--debye", "250K", "--atoms", "4", "--out", outFile);
         Assert.True(code == 0, err);
