@@ -56,7 +56,13 @@ public static class BenchCommand
                     o.WriteLine("finite U against infinite U, same lattice and mesh (passes: fine + coarse/8):");
                     foreach (int m in list)
                     {
-                        var c = SolveBenchmark.CompareFiniteU(bound, settings with { Mesh = m }, u, ct);
+                        FiniteUComparison c;
+                        try { c = SolveBenchmark.CompareFiniteU(bound, settings with { Mesh = m }, u, ct); }
+                        catch (ArgumentException e)
+                        {
+                            o.WriteLine($"  not compared: {e.Message}");
+                            break;
+                        }
                         o.WriteLine(string.Create(CultureInfo.InvariantCulture,
                             $"{c.Mesh,5}  U = {c.U:G6} {bound.Unit.Symbol()}: finite {c.FiniteSeconds:F3} s ({c.FiniteCpuSeconds:F2} cpu s, {c.FiniteIterations} iter, {c.FinitePasses} passes{(c.FiniteConverged ? "" : ", NOT converged")}), infinite {c.InfiniteSeconds:F3} s ({c.InfiniteCpuSeconds:F2} cpu s, {c.InfiniteIterations} iter, {c.InfinitePasses} passes{(c.InfiniteConverged ? "" : ", NOT converged")}); ratio {c.Ratio:F2} wall, {c.CpuRatio:F2} cpu"));
                     }

@@ -23,7 +23,7 @@ namespace Meanfield.Solver;
 public sealed partial class SaddlePointSolver
 {
     /// <summary>U per shell group (all finite), or null for the infinite-U solver.</summary>
-    private double[]? _u;
+    private readonly double[]? _u;
 
     /// <summary>True when the groups are four-boson (finite-U) shells.</summary>
     public bool IsFiniteU => _u is not null;

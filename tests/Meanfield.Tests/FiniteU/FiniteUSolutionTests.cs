@@ -101,6 +101,39 @@ public class FiniteUSolutionTests
         Assert.Equal(mid + half, gamma.Last(), 1e-6 * T);
     }
 
+    /// <summary>
+    /// The other readers of a solution on a finite-U one: DOS, export (whose correlated level must be eps_f + lambda and
+    /// whose hybridization must be q V, the renormalization of Kotliar &amp; Ruckenstein Eq. 5) and the heat, which re-solves
+    /// the finite-U saddle point at every temperature warm-started from the last.
+    /// </summary>
+    [Fact]
+    public void Dos_export_and_heat_read_a_finite_U_solution()
+    {
+        var dir = CliRun.TempDir();
+        var model = Path.Combine(dir, "model.toml");
+        File.WriteAllText(model, Toml);
+        var json = Path.Combine(dir, "s.json");
+        var (code, stdout, err) = CliRun.Run("solve", model, "--mesh", "6", "-T", "2K", "--out", json);
+        Assert.True(code == ExitCodes.Success, err + stdout);
+        var doc = Meanfield.Output.SolutionDocument.Load(json);
+        (code, stdout, err) = CliRun.Run("dos", json, "--out", Path.Combine(dir, "d.csv"));
+        Assert.True(code == ExitCodes.Success, err + stdout);
+        var export = Path.Combine(dir, "m.json");
+        (code, stdout, err) = CliRun.Run("export", json, "--out", export);
+        Assert.True(code == ExitCodes.Success, err + stdout);
+        var exported = Meanfield.Output.OneBodyModelFiles.Load(export).Model;
+        var bare = new Meanfield.Bloch.BlochHamiltonian(exported);
+        // At k = 0 the on-site block of the exported model: [[eps_c(0), qV], [qV, eps_f + lambda]] per spin.
+        var h = new System.Numerics.Complex[bare.Size * bare.Size]; var scratch = new System.Numerics.Complex[bare.Size * bare.Size];
+        bare.Assemble(Meanfield.Lattices.Vec3.Zero, h, scratch);
+        int n = bare.Size, f = exported.Orbitals.Select((o, i) => (o, i)).First(x => x.o.Name == "f").i * exported.Flavours;
+        int c = exported.Orbitals.Select((o, i) => (o, i)).First(x => x.o.Name == "d").i * exported.Flavours;
+        Assert.Equal(Ef + doc.Sites[0].Lambda, h[f * n + f].Real, 1e-9 * T);
+        Assert.Equal(doc.Sites[0].R * V, Math.Abs(h[c * n + f].Real), 1e-9 * T);
+        (code, stdout, err) = CliRun.Run("heat", model, "--mesh", "6", "--tmin", "2K", "--tmax", "20K", "--out", Path.Combine(dir, "h.csv"));
+        Assert.True(code == ExitCodes.Success, err + stdout);
+    }
+
     [Fact]
     public void Kondo_scale_of_a_finite_U_model_is_refused_with_exit_two()
     {
