@@ -34,6 +34,12 @@ public static class Summary
         sb.AppendLine($"{"group",-8} {"r",12} {"z = r^2",12} {"lambda",14} {"eps_f+lambda-mu",16} {"n_f",10}");
         foreach (var g in sp.Groups)
             sb.AppendLine($"{g.Name,-8} {g.R,12:G6} {g.Z,12:G6} {g.Lambda,14:G8} {g.BareLevel + g.Lambda - mu,16:G6} {g.FOccupation,10:G6}");
+        if (sp.Groups.Any(g => g.Bosons is not null))
+        {
+            sb.AppendLine($"{"finite U",-8} {"U",12} {"e",12} {"p",14} {"d",16} {"d^2",10}   (four bosons, r = p(e+d)/sqrt(n/2 (1-n/2)))");
+            foreach (var g in sp.Groups)
+                if (g.Bosons is { } b) sb.AppendLine($"{g.Name,-8} {g.U,12:G6} {b.E,12:G6} {b.P,14:G6} {b.D,16:G6} {b.D * b.D,10:G6}");
+        }
         if (digest?.Nodes is { } nodes && nodes.Nodes.Count > 0)
             sb.AppendLine($"nodes        {nodes.Nodes.Count} ({nodes.Nodes.Count(n => n.Pinning == Analysis.Nodes.NodePinning.Pinned)} pinned at mu), largest |E - mu| {nodes.Nodes.Max(n => Math.Abs(n.EnergyOffset)):G4} {u}");
         foreach (var n in sp.Notes) sb.AppendLine($"note: {n}");

@@ -23,9 +23,10 @@ public static class BenchCommand
         var scanMesh = new Option<int>("--scan-mesh") { Description = "Mesh of the benchmark scan", DefaultValueFactory = _ => 24 };
         var cold = new Option<int>("--cold-subset") { Description = "Scan points re-solved from a cold start for comparison", DefaultValueFactory = _ => 16 };
         var skipSolve = new Option<bool>("--no-solve") { Description = "Skip the per-mesh solve benchmark" };
+        var finiteU = new Option<string?>("--finite-u") { Description = "U of the finite-U against infinite-U comparison per mesh (default: the model's U, else 4 x its largest energy); \"off\" skips it" };
         var command = new Command("bench", "Measure solver speed: full solves per mesh against a bare diagonalisation pass, and a scan")
         {
-            model, meshes, temperature, scan, size, scanMesh, cold, skipSolve,
+            model, meshes, temperature, scan, size, scanMesh, cold, skipSolve, finiteU,
         };
         command.SetAction(async (parse, ct) =>
         {
@@ -39,11 +40,32 @@ public static class BenchCommand
                 var list = ParseMeshes(parse.GetValue(meshes)!);
                 o.WriteLine("pass: one solver pass on the wedge; bare full/wedge: assemble + diagonalise only, on every k / on the wedge; jac: analytic Jacobian from the kept eigenvectors");
                 o.WriteLine($"{"mesh",5} {"k-points",9} {"wedge",7} {"factor",6} {"group",5} {"solve s",8} {"cpu s",6} {"iter",4} {"fine",4} {"coarse",6} {"pass s",8} {"bare full",9} {"bare wedge",10} {"pass/bare",9} {"jac s",7} {"bytes/pass",10} {"peak MB",7} conv");
+                var rows = new List<string>();
                 foreach (int m in list)
                 {
                     var r = SolveBenchmark.Run(bound, settings with { Mesh = m }, ct);
-                    o.WriteLine(string.Create(CultureInfo.InvariantCulture,
+                    rows.Add(string.Create(CultureInfo.InvariantCulture,
                         $"{r.Mesh,5} {r.KPoints,9} {r.WedgePoints,7} {r.ReductionFactor,6:F2} {r.SymmetryOrder,5} {r.SolveSeconds,8:F3} {r.SolveCpuSeconds,6:F2} {r.Iterations,4} {r.ZonePasses,4} {r.CoarsePasses,6} {r.PassSeconds,8:F4} {r.BarePassSeconds,9:F4} {r.BareWedgeSeconds,10:F4} {r.PassSeconds / r.BareWedgeSeconds,9:F2} {r.JacobianSeconds,7:F4} {r.BytesPerPass,10} {r.PeakWorkingSetBytes / 1048576.0,7:F0} {(r.Converged ? "yes" : "NO")}"));
+                    o.WriteLine(rows[^1]);
+                }
+                var uText = parse.GetValue(finiteU);
+                if (uText != "off")
+                {
+                    double? u = uText is null ? null : CommonOptions.ParseEnergy(uText, bound.Unit, "--finite-u");
+                    if (u is < 0) throw new UserInputException($"--finite-u '{uText}': U must be >= 0");
+                    o.WriteLine("finite U against infinite U, same lattice and mesh (passes: fine + coarse/8):");
+                    foreach (int m in list)
+                    {
+                        FiniteUComparison c;
+                        try { c = SolveBenchmark.CompareFiniteU(bound, settings with { Mesh = m }, u, ct); }
+                        catch (ArgumentException e)
+                        {
+                            o.WriteLine($"  not compared: {e.Message}");
+                            break;
+                        }
+                        o.WriteLine(string.Create(CultureInfo.InvariantCulture,
+                            $"{c.Mesh,5}  U = {c.U:G6} {bound.Unit.Symbol()}: finite {c.FiniteSeconds:F3} s ({c.FiniteCpuSeconds:F2} cpu s, {c.FiniteIterations} iter, {c.FinitePasses} passes{(c.FiniteConverged ? "" : ", NOT converged")}), infinite {c.InfiniteSeconds:F3} s ({c.InfiniteCpuSeconds:F2} cpu s, {c.InfiniteIterations} iter, {c.InfinitePasses} passes{(c.InfiniteConverged ? "" : ", NOT converged")}); ratio {c.Ratio:F2} wall, {c.CpuRatio:F2} cpu"));
+                    }
                 }
             }
             if (parse.GetValue(scan))

@@ -38,6 +38,18 @@ public sealed record SolveBenchmarkResult(int Mesh, int KPoints, int Bands, doub
     public double ReductionFactor => KPoints / (double)WedgePoints;
 }
 
+/// <summary>A finite-U solve against the infinite-U solve of the same lattice and mesh (wall and processor seconds,
+/// fine zone passes plus the half-mesh start's passes counted at 1/8, iterations).</summary>
+public sealed record FiniteUComparison(int Mesh, double U, double FiniteSeconds, double FiniteCpuSeconds, int FinitePasses,
+                                       int FiniteIterations, bool FiniteConverged, double InfiniteSeconds, double InfiniteCpuSeconds,
+                                       int InfinitePasses, int InfiniteIterations, bool InfiniteConverged)
+{
+    /// <summary>Finite-U over infinite-U wall time.</summary>
+    public double Ratio => FiniteSeconds / InfiniteSeconds;
+    /// <summary>Finite-U over infinite-U processor time (less sensitive to other load on the machine).</summary>
+    public double CpuRatio => FiniteCpuSeconds / InfiniteCpuSeconds;
+}
+
 /// <summary>Measures full solves and single passes of a bound model (library side of `meanfield bench`).</summary>
 public static class SolveBenchmark
 {
@@ -79,6 +91,39 @@ public static class SolveBenchmark
         return new SolveBenchmarkResult(settings.Mesh, sum.Mesh.Count, solver.Bare.Size, solveSeconds, cpu, sp.Iterations, sp.ZonePasses,
             solver.CoarsePasses, 1e6 * solveSeconds / Math.Max(1, sp.ZonePasses) / sum.Irreducible.Count, bare, bareWedge, pass,
             jacobian, sum.Irreducible.Count, sum.Irreducible.Group.Order, bytes, self.PeakWorkingSet64, sp.Converged);
+    }
+
+    /// <summary>
+    /// A finite-U solve against the infinite-U solve of the same lattice on the same mesh: the model with every shell at
+    /// repulsion <paramref name="u"/> (default: the model's own U when it has one, else 4 times its largest energy) and
+    /// the model with every shell at infinite U, each solved once from the built-in starts.
+    /// </summary>
+    /// <exception cref="ArgumentException">A model the finite-U solver refuses (a Zeeman field, N != 2), or U &lt; 0.</exception>
+    public static FiniteUComparison CompareFiniteU(BoundModel model, SolverSettings settings, double? u = null, CancellationToken ct = default)
+    {
+        double scale = 1;
+        foreach (var s in model.Shells) scale = Math.Max(scale, Math.Abs(s.Level));
+        foreach (var h in model.Hoppings) scale = Math.Max(scale, h.Amplitude.MaxAbs());
+        double repulsion = u ?? model.Shells.FirstOrDefault(s => s.HasFiniteU)?.U ?? 4 * scale;
+        if (!(repulsion >= 0) || double.IsInfinity(repulsion)) throw new ArgumentException($"U = {repulsion} must be finite and >= 0");
+        var finite = model.With(shells: [.. model.Shells.Select(s => s with { U = repulsion })]);
+        var infinite = model.With(shells: [.. model.Shells.Select(s => s with { U = double.PositiveInfinity })]);
+        var (fs, fcpu, fsp) = Timed(finite, settings, ct);
+        var (isec, icpu, isp) = Timed(infinite, settings, ct);
+        return new FiniteUComparison(settings.Mesh, repulsion, fs, fcpu, fsp.ZonePasses, fsp.Iterations, fsp.Converged,
+                                     isec, icpu, isp.ZonePasses, isp.Iterations, isp.Converged);
+    }
+
+    private static (double Seconds, double Cpu, SaddlePoint Result) Timed(BoundModel model, SolverSettings settings, CancellationToken ct)
+    {
+        using var self = Process.GetCurrentProcess();
+        var cpu0 = self.TotalProcessorTime;
+        var clock = Stopwatch.StartNew();
+        var solver = new SaddlePointSolver(model, settings);
+        var sp = solver.Solve(ct);
+        double seconds = clock.Elapsed.TotalSeconds;
+        self.Refresh();
+        return (seconds, (self.TotalProcessorTime - cpu0).TotalSeconds, sp with { ZonePasses = sp.ZonePasses + solver.CoarsePasses / 8 });
     }
 
     /// <summary>The floor: assemble H(k) and compute eigenvalues and eigenvectors at every k, in parallel, nothing else.</summary>

@@ -32,6 +32,10 @@ public static class ModelBinder
         var layout = UnitCellLayout.Build(spec, lattice, env);
         var terms = new TermBuilder(spec, lattice, layout, env);
         terms.AddAll();
+        // The finite-U four-boson mean field is paramagnetic (equal p for both spins, which time reversal guarantees).
+        if (spec.Zeeman is { } zeeman && layout.Shells.FirstOrDefault(x => x.HasFiniteU) is { } finiteShell)
+            throw new ModelError(zeeman.Location, "zeeman",
+                $"a Zeeman field with a finite-U shell (U = {finiteShell.U:G6}) is not solved: the four-boson mean field here is paramagnetic; remove [zeeman] or omit U");
 
         double formula = header.FormulaUnitsPerCell.EvaluateReal(env);
         if (!(formula > 0))
@@ -124,13 +128,14 @@ public static class ModelBinder
     /// <summary>
     /// At infinite U a shell holds at most Q electrons (n_f + r^2 = Q with r^2 &gt;= 0), so a cell holds at most its
     /// conduction states plus Q per shell (Coleman, Phys. Rev. B 29, 3035 (1984): the constraint n_f + n_b = Q). A larger
-    /// count has no saddle point; refusing it here keeps `check` and `solve` in agreement.
+    /// count has no saddle point; refusing it here keeps `check` and `solve` in agreement. A finite-U shell counts N.
     /// </summary>
     private static void CheckInfiniteUFilling(ModelExpression ne, double electrons, UnitCellLayout layout, int flavours)
     {
         if (layout.Shells.Count == 0) return;
         int conduction = layout.Orbitals.Count(o => o.Kind == OrbitalKind.Conduction) * flavours;
-        double shells = layout.Shells.Sum(s => s.Constraint);
+        // A finite-U shell holds up to N electrons (n_f is free in [0, N]); an infinite-U one at most Q.
+        double shells = layout.Shells.Sum(s => s.HasFiniteU ? s.Degeneracy : s.Constraint);
         double most = conduction + shells;
         if (electrons > most * (1 + FillingTolerance))
             throw new ModelError(ne.Location, ne.Field, string.Create(System.Globalization.CultureInfo.InvariantCulture,

@@ -35,8 +35,11 @@ public static class ModelSummary
         lines.Add($"orbitals: {model.Orbitals.Count}");
         lines.Add($"shells: {model.Shells.Count} in {model.ShellGroups().Count} group(s)");
         foreach (var shell in model.Shells)
-            lines.Add(string.Format(ci, "  {0}: N = {1}, Q = {2:G6}, eps_f = {3:G6} {4}, group {5}",
-                model.Orbitals[shell.Orbital].Label(model.Sites), shell.Degeneracy, shell.Constraint, shell.Level, unit, shell.Group));
+            lines.Add(shell.HasFiniteU
+                ? string.Format(ci, "  {0}: N = {1}, U = {2:G6} {4} (four bosons), eps_f = {3:G6} {4}, group {5}",
+                    model.Orbitals[shell.Orbital].Label(model.Sites), shell.Degeneracy, shell.U, shell.Level, unit, shell.Group)
+                : string.Format(ci, "  {0}: N = {1}, Q = {2:G6}, eps_f = {3:G6} {4}, group {5}",
+                    model.Orbitals[shell.Orbital].Label(model.Sites), shell.Degeneracy, shell.Constraint, shell.Level, unit, shell.Group));
         lines.Add($"parameters: {model.Parameters.Count}");
         foreach (var p in model.Parameters) lines.Add(string.Format(ci, "  {0} = {1:G6}", p.Key, p.Value));
         lines.Add($"bands: {model.BasisSize}");

@@ -39,8 +39,15 @@ public sealed record SolutionDocument
     public required double WallSeconds { get; init; }
     public IReadOnlyList<string> Notes { get; init; } = [];
 
+    /// <summary>One shell group. At finite U also U and the four bosons e, p, d (Kotliar &amp; Ruckenstein, PRL 57, 1362
+    /// (1986)), with r = q = p (e + d) / sqrt((n_f/2)(1 - n_f/2)) and z = r^2; absent (null) at infinite U.</summary>
     public sealed record SiteEntry(string Name, int Shells, double R, double Lambda, double BareLevel,
-                                   double RenormalizedLevel, [property: JsonPropertyName("n_f")] double NF, double Z);
+                                   double RenormalizedLevel, [property: JsonPropertyName("n_f")] double NF, double Z,
+                                   double? U = null, double? E = null, double? P = null, double? D = null)
+    {
+        /// <summary>True for a finite-U (four-boson) group.</summary>
+        [JsonIgnore] public bool HasFiniteU => U is not null;
+    }
 
     public sealed record SamplingEntry(string Description, int? Mesh, bool? Shifted, string Occupations);
 
@@ -68,7 +75,8 @@ public sealed record SolutionDocument
             FreeEnergy = sp.FreeEnergy, DecoupledFreeEnergy = sp.DecoupledFreeEnergy, ElectronsPerCell = sp.ElectronsPerCell,
             Branch = sp.Branch == SaddlePointBranch.Kondo ? "kondo" : "decoupled", Spectrum = digest?.Columns,
             Sites = [.. sp.Groups.Select(g => new SiteEntry(g.Name, g.Shells, g.R, g.Lambda, g.BareLevel,
-                                                           g.BareLevel + g.Lambda - solution.Mu, g.FOccupation, g.Z))],
+                                                           g.BareLevel + g.Lambda - solution.Mu, g.FOccupation, g.Z,
+                                                           g.HasFiniteU ? g.U : null, g.Bosons?.E, g.Bosons?.P, g.Bosons?.D))],
             Parameters = model.Parameters.ToDictionary(p => p.Key, p => p.Value),
             Sampling = new(sp.Sampling, solution.Mesh is null ? null : solution.Mesh.N1, solution.Mesh?.Shifted,
                            sp.Temperature > 0 ? "fermi-dirac" : solution.Mesh is null ? "step" : "tetrahedra"),

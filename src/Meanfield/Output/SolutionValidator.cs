@@ -89,7 +89,36 @@ public static class SolutionValidator
             double scale = Math.Max(1, Math.Max(Math.Abs(s.BareLevel), Math.Max(Math.Abs(s.Lambda), Math.Abs(doc.Mu))));
             if (!Close(s.RenormalizedLevel, s.BareLevel + s.Lambda - doc.Mu, scale))
                 throw Bad(path, $"{f}.renormalized_level", $"{s.RenormalizedLevel.ToString("G8", Inv)} is not bare_level + lambda - mu = {(s.BareLevel + s.Lambda - doc.Mu).ToString("G8", Inv)} (lambda or mu was edited?)");
+            CheckBosons(s, path, f);
         }
+    }
+
+    /// <summary>
+    /// The four bosons of a finite-U group: all given with U, each in [0, 1], completeness e^2 + 2 p^2 + d^2 = 1,
+    /// n_f = 2 (p^2 + d^2) and r = p (e + d) / sqrt((n_f/2)(1 - n_f/2)) (Kotliar &amp; Ruckenstein, PRL 57, 1362 (1986), Eqs. 3-5).
+    /// </summary>
+    private static void CheckBosons(SolutionDocument.SiteEntry s, string path, string f)
+    {
+        if (s.U is null)
+        {
+            if (s.E is not null || s.P is not null || s.D is not null) throw Bad(path, $"{f}.u", "is missing but the four bosons e, p, d are given");
+            return;
+        }
+        NonNegative(s.U.Value, path, $"{f}.u", "the on-site repulsion is >= 0");
+        foreach (var (name, v) in new[] { ("e", s.E), ("p", s.P), ("d", s.D) })
+        {
+            if (v is not { } x) throw Bad(path, $"{f}.{name}", "is missing: a finite-U group carries its bosons e, p, d");
+            NonNegative(x, path, $"{f}.{name}", "a boson amplitude is >= 0");
+            if (x > 1) throw Bad(path, $"{f}.{name}", $"{x.ToString("G6", Inv)} exceeds 1 (completeness e^2 + 2 p^2 + d^2 = 1)");
+        }
+        var b = new FourBosonAmplitudes(s.E!.Value, s.P!.Value, s.D!.Value);
+        double completeness = b.E * b.E + 2 * b.P * b.P + b.D * b.D;
+        if (!Close(completeness, 1, 1))
+            throw Bad(path, $"{f}.p", $"e^2 + 2 p^2 + d^2 = {completeness.ToString("G8", Inv)} is not 1 (a boson was edited?)");
+        if (!Close(b.Filling, s.NF, 2))
+            throw Bad(path, $"{f}.n_f", $"{s.NF.ToString("G8", Inv)} is not 2 (p^2 + d^2) = {b.Filling.ToString("G8", Inv)} (n_f or a boson was edited?)");
+        if (!Close(b.Z, s.R * s.R, 1))
+            throw Bad(path, $"{f}.r", $"r^2 = {(s.R * s.R).ToString("G8", Inv)} is not the four-boson z = {b.Z.ToString("G8", Inv)} (r or a boson was edited?)");
     }
 
     /// <summary>
@@ -116,6 +145,16 @@ public static class SolutionValidator
             if (s.Shells != shells.Count) throw Bad(path, $"{f}.shells", $"{s.Shells} is not the model's {shells.Count} shell(s) in group '{groups[g]}'");
             if (!Close(s.BareLevel, shells[0].Level, Math.Max(1, Math.Abs(shells[0].Level))))
                 throw Bad(path, $"{f}.bare_level", $"{s.BareLevel.ToString("G8", Inv)} is not the model's level {shells[0].Level.ToString("G8", Inv)}");
+            if (shells[0].HasFiniteU != s.HasFiniteU)
+                throw Bad(path, $"{f}.u", shells[0].HasFiniteU
+                    ? $"is missing, but the model's group '{groups[g]}' has finite U = {shells[0].U.ToString("G6", Inv)}: an infinite-U solution does not fit it"
+                    : $"is {s.U!.Value.ToString("G6", Inv)}, but the model's group '{groups[g]}' is infinite-U: a finite-U solution does not fit it");
+            if (s.HasFiniteU)
+            {
+                if (!Close(s.U!.Value, shells[0].U, Math.Max(1, shells[0].U)))
+                    throw Bad(path, $"{f}.u", $"{s.U.Value.ToString("G8", Inv)} is not the model's U = {shells[0].U.ToString("G8", Inv)}");
+                continue; // completeness replaces the constraint Q (checked with the fields)
+            }
             double q = shells[0].Constraint;
             if (!Close(s.NF + s.R * s.R, q, q))
                 throw Bad(path, $"{f}.r", $"n_f + r^2 = {(s.NF + s.R * s.R).ToString("G8", Inv)} is not the constraint Q = {q.ToString("G6", Inv)} (r or n_f was edited?)");
@@ -136,6 +175,7 @@ public static class SolutionValidator
             Temperature = doc.Temperature, Mesh = doc.Sampling.Mesh ?? 16, Shifted = doc.Sampling.Shifted ?? true,
         };
         var solver = new SaddlePointSolver(model, settings);
+        if (solver.IsFiniteU) { CheckFiniteUSaddlePoint(doc, model, solver, path); return; }
         var amp = new MeanFieldAmplitudes([.. doc.Sites.Select(s => s.R)], [.. doc.Sites.Select(s => s.Lambda)]);
         var fill = BandFilling.Compute(solver.StateSum.Fill(amp), model.ElectronsPerCell, doc.Temperature, doc.Mu, solver.Tetrahedra);
         double e0 = EnergyScale(model);
@@ -155,6 +195,28 @@ public static class SolutionValidator
             double stationarity = fill.GrandPotentialSlope[g] / m + 2 * amp.Lambda[g] * r;
             if (Math.Abs(stationarity) > ResidualTolerance * e0)
                 throw Bad(path, $"sites[{g}]", $"dF/dr = {stationarity.ToString("G3", Inv)} {model.Unit.Symbol()} at these amplitudes: not a saddle point of the model (r or lambda was edited?)");
+        }
+    }
+
+    /// <summary>The finite-U equations at the stored bosons and multipliers (one pass): mu, n_f = n_b, dF/de = dF/dd = 0.</summary>
+    private static void CheckFiniteUSaddlePoint(SolutionDocument doc, BoundModel model, SaddlePointSolver solver, string path)
+    {
+        var bosons = doc.Sites.Select(s => new FourBosonAmplitudes(s.E!.Value, s.P!.Value, s.D!.Value)).ToList();
+        double[] res; BandFilling fill;
+        try { (res, fill) = solver.FiniteUResiduals(bosons, [.. doc.Sites.Select(s => s.Lambda)]); }
+        catch (ArgumentException e) { throw Bad(path, "sites", e.Message); }
+        double e0 = EnergyScale(model);
+        bool inWindow = fill.Window is { Width: > 0 } w && doc.Mu >= w.Lower - ResidualTolerance * e0 && doc.Mu <= w.Upper + ResidualTolerance * e0;
+        if (!inWindow && Math.Abs(fill.Mu - doc.Mu) > ResidualTolerance * e0)
+            throw Bad(path, "mu", $"{doc.Mu.ToString("G10", Inv)} does not hold {model.ElectronsPerCell.ToString("G6", Inv)} electrons per cell at these bosons (that needs mu = {fill.Mu.ToString("G10", Inv)}): not a saddle point of the model");
+        int groups = doc.Sites.Count;
+        for (int g = 0; g < groups; g++)
+        {
+            if (Math.Abs(res[g]) > ResidualTolerance)
+                throw Bad(path, $"sites[{g}]", $"n_f - 2 (p^2 + d^2) = {res[g].ToString("G3", Inv)} at these bosons: not a saddle point of the model (a boson or lambda was edited?)");
+            double stationarity = Math.Max(Math.Abs(res[groups + g]), Math.Abs(res[2 * groups + g]));
+            if (stationarity > ResidualTolerance)
+                throw Bad(path, $"sites[{g}]", $"dF/de or dF/dd = {stationarity.ToString("G3", Inv)} (relative to the largest model energy) at these bosons: not a saddle point of the model (a boson or lambda was edited?)");
         }
     }
 

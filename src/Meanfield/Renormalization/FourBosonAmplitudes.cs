@@ -41,4 +41,33 @@ public readonly record struct FourBosonAmplitudes(double E, double P, double D)
         double x = Math.Clamp(doubleOccupancy, MinDouble(n), MaxDouble(n));
         return new FourBosonAmplitudes(Math.Sqrt(Math.Max(0, 1 - n + x)), Math.Sqrt(Math.Max(0, 0.5 * n - x)), Math.Sqrt(x));
     }
+
+    /// <summary>
+    /// The amplitudes with p eliminated by completeness, p^2 = (1 - e^2 - d^2)/2, or null outside the physical region
+    /// (e, d &gt;= 0, e^2 + d^2 &lt; 1): the parametrization the lattice solver iterates in (ln e, ln d).
+    /// </summary>
+    public static FourBosonAmplitudes? FromEmptyAndDouble(double e, double d)
+    {
+        double p2 = 0.5 * (1 - e * e - d * d);
+        if (!(e >= 0 && d >= 0 && p2 > 0)) return null;
+        return new FourBosonAmplitudes(e, Math.Sqrt(p2), d);
+    }
+
+    /// <summary>
+    /// The hopping factor q = sqrt(z) = p (e + d) / sqrt((n/2)(1 - n/2)) (Kotliar &amp; Ruckenstein 1986, Eq. 5, paramagnetic)
+    /// and its partial derivatives at fixed completeness (p^2 = (1 - e^2 - d^2)/2, n/2 = (1 - e^2 + d^2)/2):
+    ///   dq/de = [(e + d) dp/de + p] / s - q (1 - n) (-e) / (2 s^2) with dp/de = -e/(2p), s^2 = (n/2)(1 - n/2),
+    /// and the same with d (dp/dd = -d/(2p), d(n/2)/dd = +d). Derived here from Eq. 5.
+    /// </summary>
+    public (double Q, double DqDe, double DqDd) FactorWithSlopes()
+    {
+        double h = 0.5 * Filling, s2 = h * (1 - h), s = Math.Sqrt(s2);
+        double q = P * (E + D) / s;
+        double dpde = -E / (2 * P), dpdd = -D / (2 * P);
+        // d(s^2)/de = (1 - 2h) dh/de with dh/de = -e, dh/dd = +d.
+        double ds2de = (1 - 2 * h) * -E, ds2dd = (1 - 2 * h) * D;
+        double dqde = ((E + D) * dpde + P) / s - 0.5 * q * ds2de / s2;
+        double dqdd = ((E + D) * dpdd + P) / s - 0.5 * q * ds2dd / s2;
+        return (q, dqde, dqdd);
+    }
 }

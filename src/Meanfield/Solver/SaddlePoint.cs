@@ -3,7 +3,8 @@ using Meanfield.Renormalization;
 namespace Meanfield.Solver;
 
 /// <summary>
-/// A solution of the infinite-U auxiliary-boson saddle point (or the best attempt, with <see cref="Converged"/> false).
+/// A solution of the infinite-U auxiliary-boson saddle point, or at finite U of the four-boson one (then each group
+/// carries its bosons and <see cref="Amplitudes"/> holds r = q), or the best attempt, with <see cref="Converged"/> false.
 /// Energies in the model's energy unit, per unit cell.
 /// </summary>
 public sealed record SaddlePoint
@@ -15,7 +16,8 @@ public sealed record SaddlePoint
     public required double Temperature { get; init; }
     /// <summary>Chemical potential mu (energy unit).</summary>
     public required double Mu { get; init; }
-    /// <summary>F = Omega_band + sum_s lambda_s (r_s^2 - Q) + mu N_e per cell (energy unit).</summary>
+    /// <summary>F = Omega_band + sum_s lambda_s (r_s^2 - Q) + mu N_e per cell (energy unit); at finite U
+    /// Omega_band + sum_s (U_s d_s^2 - lambda_s n_b,s) + mu N_e.</summary>
     public required double FreeEnergy { get; init; }
     public required double ElectronsPerCell { get; init; }
     public required SaddlePointBranch Branch { get; init; }

@@ -13,8 +13,11 @@ public sealed partial class SaddlePointSolver
     /// hybridization each group's r enters alone (one f orbital per process), so the groups decouple here.
     /// Null when no decoupled solution exists at this electron count.
     /// </summary>
+    /// <exception cref="RequestError">A finite-U model: the mean-field Kondo temperature is an infinite-U notion here.</exception>
     public double[]? DecoupledStability(double probe = 1e-6)
     {
+        if (_u is not null)
+            throw new RequestError("the mean-field Kondo temperature (where r -> 0) is defined for the infinite-U boson; this model has finite U, whose four bosons do not vanish at a temperature: omit U to compute it");
         var decoupled = Decoupled();
         if (decoupled is null) return null;
         var x = new double[2 * G];
@@ -33,6 +36,7 @@ public sealed partial class SaddlePointSolver
     /// </summary>
     public SaddlePoint? Decoupled()
     {
+        if (_u is not null) return null; // finite U: no decoupled branch
         double t = _settings.Temperature;
         double fElectrons = 0;
         foreach (var g in _groups) fElectrons += g.Shells * g.Q;

@@ -15,6 +15,17 @@ public sealed partial class SaddlePointSolver
         var sp = coarse.Solve(ct);
         CoarsePasses = coarse._passes + coarse.CoarsePasses;
         if (!sp.Converged || sp.Branch != SaddlePointBranch.Kondo) return null;
+        if (_u is not null)
+        {
+            // The finite-U iteration runs in (e, d, lambda): the coarse bosons seed it.
+            var x = new double[3 * G];
+            for (int g = 0; g < G; g++)
+            {
+                if (sp.Groups[g].Bosons is not { } b) return null;
+                x[g] = b.E; x[G + g] = b.D; x[2 * G + g] = sp.Groups[g].Lambda;
+            }
+            return (x, coarse._lastJacobian);
+        }
         return (sp.Amplitudes.Pack(), coarse._lastJacobian);
     }
 
@@ -31,6 +42,11 @@ public sealed partial class SaddlePointSolver
     /// <summary>Built-in starting points: a sizeable r with the f level placed at the chemical potential.</summary>
     private IEnumerable<double[]> Guesses()
     {
+        if (_u is not null)
+        {
+            foreach (var x in GuessesFinite()) yield return x;
+            yield break;
+        }
         if (_settings.InitialGuess is { } guess && guess.GroupCount == G) yield return guess.Pack();
         foreach (var fraction in new[] { 0.5, 0.2, 0.05 })
         {

@@ -14,7 +14,8 @@ namespace Meanfield.Solver;
 ///   &lt;dH_MF/dr_g&gt; + 2 lambda_g r_g = 0  (dF/dr_g = 0, Hellmann-Feynman)
 /// per shell, with mu fixed by the electron count at every evaluation (<see cref="BandFilling"/>). The 2G unknowns
 /// (r, lambda) are iterated by Broyden's method (Broyden, Math. Comp. 19, 577 (1965)) from a finite-difference
-/// Jacobian, with a backtracking line search; the Jacobian is rebuilt when a step fails.
+/// Jacobian, with a backtracking line search; the Jacobian is rebuilt when a step fails. Models whose shells all have a
+/// finite U are solved by the four-boson equations of SaddlePointSolver.FiniteU.cs through the same iteration.
 /// </summary>
 public sealed partial class SaddlePointSolver
 {
@@ -47,10 +48,8 @@ public sealed partial class SaddlePointSolver
         _model = model; _settings = settings;
         Bare = new BlochHamiltonian(model);
         if (model.Shells.Count == 0) throw new RequestError("the model has no correlated shell: there is no saddle point to solve");
-        if (model.Shells.FirstOrDefault(s => s.HasFiniteU) is { } finite)
-            throw new RequestError($"shell group '{finite.Group}' has finite U = {finite.U:G6}: the lattice saddle point is infinite-U only so far " +
-                                   "(finite U is solved so far only for a one-band site on a model DOS, FiniteUHubbardDos); omit U to solve at infinite U");
         var names = model.ShellGroups();
+        _u = FiniteUGroups(model, names);
         _groups = new GroupInfo[names.Count];
         for (int g = 0; g < names.Count; g++)
         {
@@ -58,7 +57,8 @@ public sealed partial class SaddlePointSolver
             if (shells.Any(s => s.Constraint != shells[0].Constraint || s.Degeneracy != shells[0].Degeneracy))
                 throw new RequestError($"shell group '{names[g]}': all its shells need the same N and Q");
             var q = shells[0].Constraint;
-            if (!(q > 0 && q < shells[0].Degeneracy))
+            // Q belongs to the infinite-U boson; the four bosons of a finite-U shell obey completeness instead.
+            if (_u is null && !(q > 0 && q < shells[0].Degeneracy))
                 throw new RequestError($"shell group '{names[g]}': the constraint Q = {q} cannot be met by N = {shells[0].Degeneracy} f states and a boson (need 0 < Q < N)");
             _groups[g] = new GroupInfo(names[g], shells.Count, q, shells[0].Level, shells[0].Degeneracy);
         }
@@ -101,6 +101,7 @@ public sealed partial class SaddlePointSolver
     /// </summary>
     private (double[] residual, BandFilling filling) EvaluateLog(double[] y)
     {
+        if (_u is not null) return EvaluateFinite(y);
         var (res, fill) = Evaluate(ToAmplitudeVector(y));
         for (int g = 0; g < G; g++) res[G + g] /= Math.Exp(y[g]) * _energyScale;
         return (res, fill);
@@ -109,6 +110,7 @@ public sealed partial class SaddlePointSolver
     /// <summary>y = (ln r, lambda / E0) to x = (r, lambda); E0 makes the multiplier and the residuals dimensionless.</summary>
     private double[] ToAmplitudeVector(double[] y)
     {
+        if (_u is not null) return FiniteToBosonVector(y);
         var x = new double[y.Length];
         for (int g = 0; g < G; g++) { x[g] = Math.Exp(y[g]); x[G + g] = y[G + g] * _energyScale; }
         return x;
@@ -116,10 +118,17 @@ public sealed partial class SaddlePointSolver
 
     private double[] ToIterationVector(double[] x)
     {
+        if (_u is not null) return FiniteToIterationVector(x);
         var y = new double[x.Length];
         for (int g = 0; g < G; g++) { y[g] = Math.Log(Math.Max(x[g], 1e-300)); y[G + g] = x[G + g] / _energyScale; }
         return y;
     }
+
+    /// <summary>The residuals a result reports: the unscaled equations at infinite U, the judged ones at finite U.</summary>
+    private double[] Reported(double[] y, double[] scaled) => _u is null ? Unscaled(y, scaled) : RelativeFinite(y, scaled);
+
+    /// <summary>The residuals the convergence test judges (dimensionless) from the iteration's scaled ones.</summary>
+    private double[] Judged(double[] y, double[] scaled) => _u is null ? Relative(Unscaled(y, scaled)) : RelativeFinite(y, scaled);
 
     /// <summary>
     /// The residuals as the convergence test judges them: constraints as they are (dimensionless), stationarity divided by
@@ -166,8 +175,10 @@ public sealed partial class SaddlePointSolver
     }
 
     /// <summary>Free energy F(r, lambda) per cell with mu fixed by the electron count (for stationarity checks).</summary>
+    /// <exception cref="InvalidOperationException">A finite-U model (its free energy needs the four bosons, see the solution).</exception>
     public double FreeEnergyAt(MeanFieldAmplitudes amp)
     {
+        if (_u is not null) throw new InvalidOperationException("F(r, lambda) is the infinite-U free energy; a finite-U solution reports its own");
         var fill = BandFilling.Compute(_sum.Fill(amp), _model.ElectronsPerCell, _settings.Temperature, tetrahedra: _tetra);
         return FreeEnergy(amp, fill);
     }
@@ -236,15 +247,15 @@ public sealed partial class SaddlePointSolver
     private StateTable? _lastTable;
 
     /// <summary>
-    /// For checks: the analytic Jacobian of the scaled residuals at x = (r, lambda) and a finite-difference one in
-    /// y = (ln r, lambda/E0): central differences with steps h and h/2 combined by Richardson extrapolation (error O(h^4)),
-    /// both row-major 2G x 2G. Null analytic when unavailable.
+    /// For checks: the analytic Jacobian of the scaled residuals at x = (r, lambda) (at finite U x = (e, d, lambda)) and a
+    /// finite-difference one in y = (ln r, lambda/E0) (at finite U y = (ln(e + d), d/(e + d), lambda/E0)): central differences with steps h and h/2 combined by Richardson extrapolation (error O(h^4)),
+    /// both row-major (2G or 3G squared). Null analytic when unavailable.
     /// </summary>
     internal (double[]? Analytic, double[] Numeric) JacobianCheck(double[] x, double step = 1e-5)
     {
         var y = ToIterationVector(x);
         var (res, fill) = EvaluateLog(y);
-        var analytic = AnalyticJacobian(y, res, fill);
+        var analytic = _u is null ? AnalyticJacobian(y, res, fill) : AnalyticJacobianFinite(y, res, fill);
         int n = y.Length;
         var numeric = new double[n * n];
         for (int c = 0; c < n; c++)
@@ -302,10 +313,10 @@ public sealed partial class SaddlePointSolver
         for (int it = 0; it < _settings.MaxIterations; it++)
         {
             ct.ThrowIfCancellationRequested();
-            if (MaxAbs(Relative(Unscaled(y, res))) < _settings.Tolerance && MaxAbs(res) < 1e3 * _settings.Tolerance)
+            if (MaxAbs(Judged(y, res)) < _settings.Tolerance && MaxAbs(res) < 1e3 * _settings.Tolerance)
             {
                 _lastJacobian = jac;
-                return new(ToAmplitudeVector(y), Unscaled(y, res), fill, it, true, false, false);
+                return new(ToAmplitudeVector(y), Reported(y, res), fill, it, true, false, false);
             }
             // Collapse: r below the threshold, or r small and the residual no longer falling (no r > 0 solution:
             // the scaled equations tend to constants as r -> 0, so the iteration creeps towards 0 on a plateau).
@@ -313,11 +324,12 @@ public sealed partial class SaddlePointSolver
             for (int g = 0; g < G; g++) { collapsed &= y[g] < collapse; small &= Math.Exp(2 * y[g]) < 1e-3 * _groups[g].Q; }
             history.Add(Norm(res));
             if (small && history.Count > 4 && history[^1] > 0.7 * history[^5]) collapsed = true;
-            if (collapsed) return new(ToAmplitudeVector(y), Unscaled(y, res), fill, it, false, true, false);
+            if (_u is not null) collapsed = FiniteCollapsing(y, history);
+            if (collapsed) return new(ToAmplitudeVector(y), Reported(y, res), fill, it, false, true, false);
             bool newtonStep = false;
             if (newton)
             {
-                if (AnalyticJacobian(y, res, fill) is { } analytic) { jac = analytic; fresh = true; newtonStep = true; }
+                if ((_u is null ? AnalyticJacobian(y, res, fill) : AnalyticJacobianFinite(y, res, fill)) is { } analytic) { jac = analytic; fresh = true; newtonStep = true; }
                 else newton = false;
             }
             if (jac is null) { jac = Jacobian(y, res); fresh = true; }
@@ -326,12 +338,14 @@ public sealed partial class SaddlePointSolver
             if (!Numerics.DenseSolve.TrySolve(jac, rhs, n, out var dy))
             {
                 if (newtonStep) { newton = false; jac = null; continue; }
-                if (fresh) return new(ToAmplitudeVector(y), Unscaled(y, res), fill, it, false, false, true);
+                if (fresh) return new(ToAmplitudeVector(y), Reported(y, res), fill, it, false, false, true);
                 jac = null; continue;
             }
             // A step may change r by at most a factor e^2 (ln r moves by at most 2).
             double alpha = 1;
             for (int g = 0; g < G; g++) if (Math.Abs(dy[g]) > 2) alpha = Math.Min(alpha, 2 / Math.Abs(dy[g]));
+            // At finite U the share t = d/(e + d) moves by at most 0.2 per step.
+            if (_u is not null) for (int g = G; g < 2 * G; g++) if (Math.Abs(dy[g]) > 0.2) alpha = Math.Min(alpha, 0.2 / Math.Abs(dy[g]));
             double norm0 = Norm(res);
             bool accepted = false;
             double[] yn = y, rn = res; BandFilling fn = fill;
@@ -346,7 +360,7 @@ public sealed partial class SaddlePointSolver
             {
                 // Newton failed here: Broyden with a finite-difference Jacobian takes over for this start.
                 if (newtonStep) { newton = false; jac = null; NewtonFallbacks++; continue; }
-                if (fresh) return new(ToAmplitudeVector(y), Unscaled(y, res), fill, it + 1, false, false, true);
+                if (fresh) return new(ToAmplitudeVector(y), Reported(y, res), fill, it + 1, false, false, true);
                 jac = null; continue;
             }
             if (newtonStep) { y = yn; res = rn; fill = fn; continue; }
@@ -365,12 +379,13 @@ public sealed partial class SaddlePointSolver
             if (Norm(rn) > 0.5 * norm0 && Norm(rn) > 1e3 * _settings.Tolerance) jac = null;
             y = yn; res = rn; fill = fn;
         }
-        var final = Unscaled(y, res);
-        return new(ToAmplitudeVector(y), final, fill, _settings.MaxIterations, MaxAbs(Relative(final)) < _settings.Tolerance, false, false);
+        var final = Reported(y, res);
+        return new(ToAmplitudeVector(y), final, fill, _settings.MaxIterations, MaxAbs(Judged(y, res)) < _settings.Tolerance, false, false);
     }
 
     private SaddlePoint Finish(Attempt a)
     {
+        if (_u is not null) return FinishFinite(a);
         var amp = MeanFieldAmplitudes.Unpack(a.X);
         var notes = new List<string>();
         var decoupled = Decoupled();

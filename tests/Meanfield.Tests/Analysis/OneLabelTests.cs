@@ -20,6 +20,7 @@ public class OneLabelTests
     [InlineData("heavy-metal-cubic.toml")]
     [InlineData("weyl-diamond.toml")]
     [InlineData("honeycomb-2d.toml")]
+    [InlineData("brelvanite.toml")]
     public void SolveAndNodesAgree(string file)
     {
         using var cli = new CliHarness();
@@ -48,6 +49,7 @@ public class OneLabelTests
     [Theory]
     [InlineData("scans/weyl-diamond-v-ratio.toml", 13)]
     [InlineData("scans/cubic-kondo-t-v.toml", 7)]
+    [InlineData("scans/brelvanite-u-ef.toml", 13)]
     public void ScanRowsAgreeWithSolve(string scanFile, int stride)
     {
         var path = Scans.RealSolverScanTests.RepoFile(scanFile);

@@ -49,12 +49,4 @@ public class FiniteUModelTests
         Assert.Equal("site[1].shell.U", e.Field);
         Assert.Contains("N = 2", e.Message);
     }
-
-    [Fact]
-    public void Lattice_solver_refuses_finite_U_instead_of_ignoring_it()
-    {
-        var model = ModelText.Bind(WithU("300"));
-        var ex = Assert.Throws<RequestError>(() => new SaddlePointSolver(model, new SolverSettings()));
-        Assert.Contains("finite U", ex.Message);
-    }
 }
