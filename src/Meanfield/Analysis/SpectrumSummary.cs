@@ -5,6 +5,7 @@ using Meanfield.Analysis.Topology;
 using Meanfield.Heat;
 using Meanfield.Lattices;
 using Meanfield.Solutions;
+using Meanfield.Solver;
 using Meanfield.Units;
 
 namespace Meanfield.Analysis;
@@ -14,7 +15,7 @@ public sealed record SpectrumRequest
 {
     /// <summary>Coarse mesh of the node search (default <see cref="NodeSearchOptions.DefaultMesh"/>; 4 to 96).</summary>
     public int SearchMesh { get; init; } = NodeSearchOptions.DefaultMesh;
-    /// <summary>Compute the DOS at mu (tetrahedra on the solution mesh's divisions, Gamma-centred) and gamma (default true).</summary>
+    /// <summary>Compute the DOS at mu (tetrahedra on the solution's own mesh, shifted or not as it was solved) and gamma (default true).</summary>
     public bool Dos { get; init; } = true;
     /// <summary>Compute the node heat coefficient beta (default true).</summary>
     public bool Heat { get; init; } = true;
@@ -56,17 +57,13 @@ public static class SpectrumSummary
             var label = solution.Decoupled ? new PhaseLabel(Phase.Decoupled, "all boson amplitudes vanish (r = 0)") : null;
             return new(mu, label, null, null, null, new SpectrumColumns { Phase = label?.Name, PhaseReason = label?.Reason });
         }
-        // The operations of H(k), found once for both the DOS and the gap meshes.
-        var group = new Lazy<global::Meanfield.Symmetry.SymmetryGroup>(() => global::Meanfield.Symmetry.SymmetryGroup.Find(new Bloch.BlochHamiltonian(model)));
+        // One pass over the solution's own mesh serves the DOS at mu, the gaps and the node seeds: the solve's final
+        // pass when it was kept, otherwise a fresh one over the irreducible wedge (energies and kind weights are the
+        // same across an orbit; tetrahedra read every corner through the orbit map).
+        var pass = new Lazy<ZonePass>(() => solution.FinalPass ?? PassDos.Diagonalise(solution.Hamiltonian,
+            new global::Meanfield.Symmetry.IrreducibleMesh(solution.Mesh, global::Meanfield.Symmetry.SymmetryGroup.Find(new Bloch.BlochHamiltonian(model)))));
         DosValue? dos = null;
-        if (req.Dos || solution.Decoupled)
-        {
-            // Tetrahedra need every corner, but only the irreducible points are diagonalised (energies and kind
-            // weights are the same across an orbit).
-            var m = solution.Mesh;
-            var gamma = new KMesh(model.Lattice, m.N1, m.N2, m.N3, shifted: false);
-            dos = new TetrahedronDos(solution.Hamiltonian, gamma, SymmetryWedge.For(model, group.Value, gamma)).DosAtEnergy(mu);
-        }
+        if (req.Dos || solution.Decoupled) dos = PassDos.AtEnergy(pass.Value, mu);
         GapReport? gaps = null;
         NodeSearchResult? nodes = null;
         if (solution.WholeFilling && !solution.Decoupled)
@@ -74,8 +71,8 @@ public static class SpectrumSummary
             int occ = solution.OccupiedBands;
             var options = new NodeSearchOptions { Mesh = req.SearchMesh, Temperature = solution.Temperature };
             nodes = solution.PlacementNodes is { } p && p.ChemicalPotential == mu && req.SearchMesh == NodeSearchOptions.DefaultMesh && solution.Temperature == 0
-                ? p : NodeSearch.Find(solution.Hamiltonian, occ, mu, options);
-            gaps = Gaps(solution, occ, nodes, group.Value);
+                ? p : NodeSearch.Find(solution.Hamiltonian, occ, mu, options, pass.Value);
+            gaps = Gaps(pass.Value, occ, nodes);
         }
         var phase = PhaseClassifier.Classify(solution.Decoupled, solution.WholeFilling, gaps, nodes);
         InvariantReport? invariants = null;
@@ -105,10 +102,9 @@ public static class SpectrumSummary
     }
 
     // Gaps on the solution's mesh, with the refined nodes included: a touching between mesh points closes the gap.
-    // Band extrema are the same across a symmetry orbit, so the irreducible points suffice.
-    private static GapReport Gaps(Solution solution, int occ, NodeSearchResult nodes, global::Meanfield.Symmetry.SymmetryGroup group)
+    private static GapReport Gaps(ZonePass pass, int occ, NodeSearchResult nodes)
     {
-        var g = GapFinder.Find(MeshSpectrum.Compute(solution.Hamiltonian, SymmetryWedge.For(solution.Model, group, solution.Mesh!), withProjections: false), occ);
+        var g = GapFinder.Find(pass, occ);
         if (nodes.Nodes.Count == 0) return g;
         var lowest = nodes.Nodes.MinBy(n => n.Gap)!;
         double hi = nodes.Nodes.Max(n => n.Energy), lo = nodes.Nodes.Min(n => n.Energy);

@@ -274,8 +274,11 @@ public sealed partial class SaddlePointSolver
             // A start that flows to r = 0 speaks for all: smaller starting amplitudes only flow there faster.
             if (attempt.Converged || attempt.Collapsed) break;
         }
+        // Kept before Finish, whose decoupled branch refills the sum with energies only.
+        var last = (_sum as MeshStateSum)?.LastPass(MeanFieldAmplitudes.Unpack(best!.X));
         var result = Finish(best!);
-        return result with { WallSeconds = clock.Elapsed.TotalSeconds, ZonePasses = _passes, Symmetry = _reduction };
+        return result with { WallSeconds = clock.Elapsed.TotalSeconds, ZonePasses = _passes, Symmetry = _reduction,
+                             FinalPass = last is not null && last.MadeAt(result.Amplitudes) ? last : null };
     }
 
     private sealed record Attempt(double[] X, double[] Res, BandFilling Filling, int Iterations, bool Converged, bool Collapsed, bool Stalled)
