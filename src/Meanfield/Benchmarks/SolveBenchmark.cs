@@ -29,10 +29,14 @@ namespace Meanfield.Benchmarks;
 /// <param name="BytesPerPass">Bytes allocated by one solver pass, all threads (GC.GetTotalAllocatedBytes).</param>
 /// <param name="PeakWorkingSetBytes">Peak working set of the process so far.</param>
 /// <param name="Converged">Whether the solve converged.</param>
+/// <param name="DigestSeconds">Wall time of what `solve` does after the saddle point: the solution handle and its
+/// spectrum digest (phase, gaps, nodes, DOS at mu, invariants), from the solve's final pass (s); 0 when not converged.</param>
+/// <param name="Phase">The digest's phase label (null when not converged).</param>
 public sealed record SolveBenchmarkResult(int Mesh, int KPoints, int Bands, double SolveSeconds, double SolveCpuSeconds, int Iterations, int ZonePasses,
                                           int CoarsePasses, double MicrosecondsPerKPointPass, double BarePassSeconds,
                                           double BareWedgeSeconds, double PassSeconds, double JacobianSeconds, int WedgePoints,
-                                          int SymmetryOrder, long BytesPerPass, long PeakWorkingSetBytes, bool Converged)
+                                          int SymmetryOrder, long BytesPerPass, long PeakWorkingSetBytes, bool Converged,
+                                          double DigestSeconds = 0, string? Phase = null)
 {
     /// <summary>Full-mesh points per wedge point.</summary>
     public double ReductionFactor => KPoints / (double)WedgePoints;
@@ -41,6 +45,8 @@ public sealed record SolveBenchmarkResult(int Mesh, int KPoints, int Bands, doub
 /// <summary>Measures full solves and single passes of a bound model (library side of `meanfield bench`).</summary>
 public static class SolveBenchmark
 {
+    /// <summary>Solves <paramref name="model"/> with <paramref name="settings"/>, digests it as `solve` does, then times single passes.</summary>
+    /// <exception cref="ArgumentException">A lattice without momentum.</exception>
     public static SolveBenchmarkResult Run(BoundModel model, SolverSettings settings, CancellationToken ct = default)
     {
         var solver = new SaddlePointSolver(model, settings);
@@ -52,6 +58,15 @@ public static class SolveBenchmark
         double solveSeconds = clock.Elapsed.TotalSeconds;
         self.Refresh();
         double cpu = (self.TotalProcessorTime - cpu0).TotalSeconds;
+
+        double digest = 0; string? phase = null;
+        if (sp.Converged)
+        {
+            clock.Restart();
+            var solution = Solutions.Solution.FromSaddlePoint(model, sp, settings);
+            phase = Analysis.SpectrumSummary.Compute(solution).Phase?.Name;
+            digest = clock.Elapsed.TotalSeconds;
+        }
 
         // One more pass at the solution: warm caches, then measure time and allocation of the best of three.
         sum.Fill(sp.Amplitudes);
@@ -76,7 +91,7 @@ public static class SolveBenchmark
         self.Refresh();
         return new SolveBenchmarkResult(settings.Mesh, sum.Mesh.Count, solver.Bare.Size, solveSeconds, cpu, sp.Iterations, sp.ZonePasses,
             solver.CoarsePasses, 1e6 * solveSeconds / Math.Max(1, sp.ZonePasses) / sum.Irreducible.Count, bare, bareWedge, pass,
-            jacobian, sum.Irreducible.Count, sum.Irreducible.Group.Order, bytes, self.PeakWorkingSet64, sp.Converged);
+            jacobian, sum.Irreducible.Count, sum.Irreducible.Group.Order, bytes, self.PeakWorkingSet64, sp.Converged, digest, phase);
     }
 
     /// <summary>The floor: assemble H(k) and compute eigenvalues and eigenvectors at every k, in parallel, nothing else.</summary>
