@@ -78,7 +78,10 @@ public static class SpectrumSummary
         InvariantReport? invariants = null;
         if (req.Topology && phase.Phase == Phase.KondoInsulator)
         {
-            invariants = InvariantReport.Compute(solution.Hamiltonian, solution.OccupiedBands, new Z2Options { GapMesh = req.SearchMesh, ParityAloneWhenInversion = true });
+            // The digest's own search is the gap check: a Kondo insulator label already says it found no touching.
+            var check = nodes is not null && gaps is not null ? GapCheckResult.From(nodes, gaps) : null;
+            invariants = InvariantReport.Compute(solution.Hamiltonian, solution.OccupiedBands,
+                new Z2Options { GapMesh = req.SearchMesh, ParityAloneWhenInversion = true, Gap = check });
             phase = PhaseClassifier.WithTopology(phase, invariants);
         }
         double? beta = null;
