@@ -291,6 +291,7 @@ public static class NodeSearch
             return ws;
         }, _ => { });
         var nodes = new WeylNode[ks.Count];
+        var location = new string?[ks.Count];
         for (int i = 0; i < ks.Count; i++)
         {
             var k = ks[i];
@@ -301,6 +302,8 @@ public static class NodeSearch
             for (int n = 0; n < v.Length; n++) if (Math.Abs(v[n] - mid) < window) deg++;
             var cone = cones[i];
             var (src, sign) = image[i];
+            // The names are those of the cubic point group, which holds every operation of H(k): an image shares its source's.
+            location[i] = src == i ? HighSymmetryLocator.Locate(lattice, k, 1e3 * SpectrumTolerances.MergeFraction) : location[src];
             var chir = src == i ? chirality[i]
                 : new ChiralityResult(chirality[src].Chirality * sign, chirality[src].FluxOver2Pi * sign, chirality[src].Radius);
             double offset = mid - mu;
@@ -309,7 +312,7 @@ public static class NodeSearch
             nodes[i] = new WeylNode(k, new Vec3(Fold(r.X), Fold(r.Y), dim == 3 ? Fold(r.Z) : 0), mid, offset, pin, ec - ev,
                 chir.Chirality, dim == 3 ? chir.FluxOver2Pi : null, chir.Radius,
                 cone.Velocity, cone.Singular, cone.DetVelocity, cone.Tilt, cone.TiltRatio, deg,
-                HighSymmetryLocator.Locate(lattice, k, 1e3 * SpectrumTolerances.MergeFraction), orbit[i]);
+                location[i], orbit[i]);
         }
         // Sorted on reduced coordinates rounded to the merge scale, so near-ties order the same way in every run.
         static double Key(double x) => Math.Round(x / SpectrumTolerances.MergeFraction);
