@@ -60,4 +60,23 @@ public class PassDosTests
         }
         Assert.True(fullProbe.Total > 0, "the probe must lie inside the bands");
     }
+
+    [Fact]
+    public void GapsFromTheWedgePassAreThoseOfTheFullMesh()
+    {
+        // Band extrema are the same across an orbit (common practice), and the wedge keeps each orbit's smallest index,
+        // so the extrema and where they are first met agree with a scan of the whole mesh.
+        var model = ModelBinder.Bind(ModelFile.Load(CliRun.ModelPath("weyl-diamond.toml")), new Dictionary<string, string> { ["m"] = "50" });
+        var settings = new SolverSettings { Temperature = 0.2, Mesh = 10, Shifted = true };
+        var sp = new SaddlePointSolver(model, settings).Solve();
+        Assert.True(sp.Converged);
+        var h = new RenormalizedHamiltonian(new BlochHamiltonian(model), sp.Amplitudes);
+        var full = Meanfield.Analysis.Gaps.GapFinder.Find(h, new KMesh(model.Lattice, 10, true), 2);
+        var reduced = Meanfield.Analysis.Gaps.GapFinder.Find(sp.FinalPass!, 2);
+        Assert.True(reduced.Indirect > 0, "the test needs an insulator");
+        Assert.Equal(full.Direct, reduced.Direct, 1e-9 * Math.Abs(full.Direct));
+        Assert.Equal(full.Indirect, reduced.Indirect, 1e-9 * Math.Abs(full.Indirect));
+        Assert.Equal(full.ValenceMaximum, reduced.ValenceMaximum, 1e-12 * Math.Abs(full.ValenceMaximum));
+        Assert.Equal(full.ConductionMinimum, reduced.ConductionMinimum, 1e-12 * Math.Abs(full.ConductionMinimum));
+    }
 }
