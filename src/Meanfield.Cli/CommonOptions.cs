@@ -32,6 +32,31 @@ public static class CommonOptions
 
     public static Option<string> Out(bool required = true) => new("--out", "-o") { Description = "Output file", Required = required };
 
+    /// <summary>
+    /// Checks a table's --out: .csv or .parquet by extension, or "-" for CSV on standard output. Returns true for "-":
+    /// then no picture is drawn and the command's messages go to standard error, so the table can be piped.
+    /// </summary>
+    /// <exception cref="UserInputException">Another extension.</exception>
+    public static bool CheckTableOut(string outPath)
+    {
+        if (Output.AtomicFile.IsStandardOutput(outPath)) return true;
+        if (Path.GetExtension(outPath).ToLowerInvariant() is not (".csv" or ".parquet"))
+            throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name, or - for CSV on standard output");
+        return false;
+    }
+
+    /// <summary>"wrote F.csv and F.png", or "wrote the table to standard output" for --out -.</summary>
+    public static string Wrote(string outPath, string? picture) =>
+        Output.AtomicFile.IsStandardOutput(outPath) ? "wrote the table to standard output" : picture is null ? $"wrote {outPath}" : $"wrote {outPath} and {picture}";
+
+    /// <summary>The picture drawn beside a table (.png), or null when the table goes to standard output.</summary>
+    public static string? PictureBeside(string outPath) =>
+        Output.AtomicFile.IsStandardOutput(outPath) ? null : Path.ChangeExtension(outPath, ".png");
+
+    /// <summary>Where a command's messages go: standard error when its data goes to standard output (--out -).</summary>
+    public static TextWriter Messages(ParseResult parse, string outPath) =>
+        Output.AtomicFile.IsStandardOutput(outPath) ? parse.InvocationConfiguration.Error : parse.InvocationConfiguration.Output;
+
     public static Dictionary<string, string> ParseSets(string[]? sets)
     {
         var result = new Dictionary<string, string>(StringComparer.Ordinal);
@@ -77,6 +102,34 @@ public static class CommonOptions
         return inUnit;
     }
 
+    /// <summary>
+    /// --window E1 E2: an energy window relative to mu, two energies read by the one energy grammar (bare numbers in the
+    /// model's unit, or with a unit: -20meV); with <paramref name="allowAll"/> the single word "all" as well.
+    /// </summary>
+    public static Option<string[]> Window(string description, bool required = false, bool allowAll = false) => new("--window")
+    {
+        Description = description, Required = required,
+        Arity = new ArgumentArity(allowAll ? 1 : 2, 2), AllowMultipleArgumentsPerToken = true,
+    };
+
+    /// <summary>The window of <see cref="Window"/> in the model's unit, relative to mu; null when not given or "all".</summary>
+    /// <exception cref="UserInputException">Not two energies E1 &lt; E2 (or "all").</exception>
+    public static (double Low, double High)? ParseWindow(string[]? given, EnergyUnit unit, string option = "--window") => given switch
+    {
+        null or [] or ["all"] => null,
+        [var a, var b] when ParseEnergy(a, unit, option) is var lo && ParseEnergy(b, unit, option) is var hi && hi > lo => (lo, hi),
+        _ => throw new UserInputException($"{option} {string.Join(" ", given)}: give two energies E1 < E2 relative to mu (such as -20 20, or -20meV 20meV)"),
+    };
+
+    /// <summary>Two temperatures T1 &lt; T2 (0.1K 2K; bare numbers in the model's unit), in the model's unit; null when not given or "auto".</summary>
+    /// <exception cref="UserInputException">Not two temperatures T1 &lt; T2 (or "auto").</exception>
+    public static (double Low, double High)? ParseTemperatureWindow(string[]? given, EnergyUnit unit, string option) => given switch
+    {
+        null or [] or ["auto"] => null,
+        [var a, var b] when ParseTemperature(a, unit, option) is var lo && ParseTemperature(b, unit, option) is var hi && hi > lo => (lo, hi),
+        _ => throw new UserInputException($"{option} {string.Join(" ", given)}: give two temperatures T1 < T2 (such as 0.1K 2K), or auto"),
+    };
+
     /// <summary>An energy option ("-20", "-20meV", "0.02 eV"; a bare number in the model's unit) in the model's unit.</summary>
     public static double ParseEnergy(string text, EnergyUnit unit, string option)
     {
@@ -106,8 +159,7 @@ public static class CommonOptions
             MaxIterations = maxIterations ?? hints?.MaxIterations ?? 100,
             Symmetry = hints?.Symmetry is { } sym ? Symmetry.SymmetryRequest.Parse(sym) : Symmetry.SymmetryRequest.Auto,
         };
-        try { settings.Validate(); }
-        catch (ArgumentException e) { throw new UserInputException(e.Message); }
+        settings.Validate();
         return settings;
     }
 }

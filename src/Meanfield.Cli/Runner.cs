@@ -3,13 +3,19 @@ using Meanfield.Models;
 
 namespace Meanfield.Cli;
 
-/// <summary>Runs a command and turns every known failure into one line on stderr and a documented exit code.</summary>
+/// <summary>
+/// Runs a command and turns every known failure into one line on stderr and a documented exit code: an
+/// <see cref="InputException"/> (or an unreadable, missing file) is bad input (2); anything else, ArgumentException
+/// included, is an internal error (70).
+/// </summary>
 public static class Runner
 {
     public static int Run(RootCommand root, string[] args, TextWriter? stdout = null, TextWriter? stderr = null)
     {
         var output = stdout ?? Console.Out;
         var error = stderr ?? Console.Error;
+        // `--out -` writes to this run's standard output: the process's own, or the captured writer of a test or host.
+        Output.AtomicFile.StandardOutput = ReferenceEquals(output, Console.Out) ? Console.OpenStandardOutput : () => new Display.TextWriterStream(output);
         try
         {
             // The version and the help speak of the program by its command name and its one version string.
@@ -37,12 +43,13 @@ public static class Runner
         catch (InvalidDataException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
         catch (FileNotFoundException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
         catch (DirectoryNotFoundException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
-        catch (ArgumentException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.BadInput; }
         catch (NoAnswerException e) { error.WriteLine($"no answer: {e.Message}"); return ExitCodes.NoAnswer; }
         catch (NotConvergedException e) { error.WriteLine($"error: {e.Message}"); return ExitCodes.NotConverged; }
         catch (OperationCanceledException) { error.WriteLine("cancelled"); return 130; }
         catch (Exception e)
         {
+            // ArgumentException included: a library precondition our own code violated is a bug, not bad input
+            // (what the user gave is reported as an InputException).
             error.WriteLine($"internal error (please report it with the command line): {e}");
             return ExitCodes.Internal;
         }

@@ -14,17 +14,16 @@ public static class BandsCommand
         var output = CommonOptions.Out();
         var path = new Option<string>("--path") { Description = "\"auto\" (the lattice's standard path) or labels like \"G X W L G\" (| breaks the path)", DefaultValueFactory = _ => "auto" };
         var points = new Option<int>("--points") { Description = "k-points along the whole path", DefaultValueFactory = _ => 300 };
-        var window = new Option<string[]>("--window") { Description = "Picture's energy window E1 E2 around mu (such as -20 20, or -20meV 20meV; bare numbers in the model's energy unit), or \"all\"; default: the bands next to mu", Arity = new ArgumentArity(1, 2), AllowMultipleArgumentsPerToken = true };
+        var window = CommonOptions.Window("Picture's energy window E1 E2 relative to mu (-20 20, or -20meV 20meV; bare numbers in the model's energy unit), or \"all\"; default: mu +- 4 times the distance holding 80% of the correlated weight", allowAll: true);
         var weight = new Option<bool>("--no-weight") { Description = "Do not colour the bands by their correlated-orbital weight" };
         var command = new Command("bands", "Band energies along a high-symmetry path (CSV or Parquet by extension) and a picture (PNG next to it)")
             { output, path, points, window, weight };
         solution.AddTo(command);
         command.SetAction(parse =>
         {
-            var o = parse.InvocationConfiguration.Output;
             var outPath = parse.GetValue(output)!;
-            var ext = Path.GetExtension(outPath).ToLowerInvariant();
-            if (ext is not (".csv" or ".parquet")) throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name");
+            var o = CommonOptions.Messages(parse, outPath);
+            CommonOptions.CheckTableOut(outPath);
             int count = parse.GetValue(points);
             if (count < 2) throw new UserInputException($"--points {count}: need at least 2");
             CommonOptions.RefuseOverwrite(parse.GetValue(solution.Input)!, [outPath, Path.ChangeExtension(outPath, ".png")]);
@@ -34,18 +33,12 @@ public static class BandsCommand
             var bandPath = spec == "auto" ? BandPath.Default(src.Model.Lattice) : BandPath.Parse(spec, src.Model.Lattice);
             var bands = BandStructure.Compute(src.Hamiltonian, bandPath.Sample(count));
             BandTableWriter.Write(bands, outPath, ResultProvenance.Of(src), src.Mu);
-            var picture = Path.ChangeExtension(outPath, ".png");
+            var picture = CommonOptions.PictureBeside(outPath);
             var title = $"{src.Model.Name}: {(src.Origin == Solutions.SolutionOrigin.BareModel ? "bare bands" : "renormalized bands")}";
-            (double, double)? win = parse.GetValue(window) switch
-            {
-                null or [] or ["all"] => null,
-                [var a, var b] when CommonOptions.ParseEnergy(a, src.Model.Unit, "--window") is var lo && CommonOptions.ParseEnergy(b, src.Model.Unit, "--window") is var hi && hi > lo => (lo, hi),
-                var w => throw new UserInputException($"--window {string.Join(" ", w)}: give E1 < E2 around mu, or all"),
-            };
+            var win = CommonOptions.ParseWindow(parse.GetValue(window), src.Model.Unit);
             if (parse.GetValue(window) is ["all"]) { var (lo, hi) = bands.EnergyRange(); win = (lo - src.Mu, hi - src.Mu); }
-            BandPlot.Save(bands, picture, title, src.Model.Unit, src.Mu, colourByCorrelatedWeight: !parse.GetValue(weight) && src.Model.Shells.Count > 0, window: win,
-                          highestFilled: src.WholeFilling ? src.OccupiedBands - 1 : null);
-            o.WriteLine($"wrote {outPath} and {picture} ({bands.Energies().GetLength(0)} k-points, {bands.Energies().GetLength(1)} bands)");
+            if (picture is not null) BandPlot.Save(bands, picture, title, src.Model.Unit, src.Mu, colourByCorrelatedWeight: !parse.GetValue(weight) && src.Model.Shells.Count > 0, window: win);
+            o.WriteLine($"{CommonOptions.Wrote(outPath, picture)} ({bands.Energies().GetLength(0)} k-points, {bands.Energies().GetLength(1)} bands)");
             return ExitCodes.Success;
         });
         return command;

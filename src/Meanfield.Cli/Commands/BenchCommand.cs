@@ -50,7 +50,6 @@ public static class BenchCommand
             if (parse.GetValue(scan))
             {
                 int n = parse.GetValue(size);
-                if (n < 2 || parse.GetValue(scanMesh) < 2) throw new UserInputException($"--scan-size {n} --scan-mesh {parse.GetValue(scanMesh)}: need at least 2 of each");
                 var definition = ScanBenchmark.Resampled(parse.GetValue(file)!, n, parse.GetValue(scanMesh));
                 o.WriteLine($"scan: {parse.GetValue(file)} resampled to {n} x {n} points, mesh {parse.GetValue(scanMesh)}, node and DOS columns, cold subset {parse.GetValue(cold)} ...");
                 var r = await ScanBenchmark.RunAsync(definition, parse.GetValue(cold), null, ct);

@@ -21,26 +21,23 @@ public static class DipoleCommand
         solution.AddTo(command);
         command.SetAction(parse =>
         {
-            var o = parse.InvocationConfiguration.Output;
             var outPath = parse.GetValue(output)!;
-            if (Path.GetExtension(outPath).ToLowerInvariant() is not (".csv" or ".parquet")) throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name");
+            var o = CommonOptions.Messages(parse, outPath);
+            CommonOptions.CheckTableOut(outPath);
             var src = solution.Resolve(parse, o);
             var model = src.Model;
             if (model.IsMomentumFree) throw new UserInputException($"{model.SourcePath}: a momentum-free lattice has no Berry curvature");
-            double mu0 = ResponseOptions.ReferenceMu(src);
+            double mu0 = src.Mu;
             var (mu, t, mesh) = response.Parse(parse, mu0, model.Unit, positiveTemperature: true);
 
             var r = CurvatureDipole.Compute(src.Hamiltonian, mu, t, mesh);
             var cone = ConeDipole.ForSolution(src);
 
-            var meta = new Dictionary<string, string>
-            {
-                ["model"] = model.Name, ["source"] = ResultProvenance.SourceFile(src), ["source_kind"] = src.OriginText, ["model_sha256"] = Provenance.Hash(model.SourceText), ["tool_version"] = Provenance.ToolVersion,
-            };
+            var meta = new Dictionary<string, string>(ResultProvenance.Of(src));
             if (cone is { Complete: true }) meta["cone_limit_D"] = string.Join(" ", cone.Tensor.Select(x => x.ToString("R", System.Globalization.CultureInfo.InvariantCulture)));
             ResponseTables.WriteDipole(r, outPath, mu0, model.Unit, meta);
-            var picture = Path.ChangeExtension(outPath, ".png");
-            ResponsePlots.SaveDipole(r, picture, $"{model.Name}: Berry curvature dipole", mu0, model.Unit);
+            var picture = CommonOptions.PictureBeside(outPath);
+            if (picture is not null) ResponsePlots.SaveDipole(r, picture, $"{model.Name}: Berry curvature dipole", mu0, model.Unit);
             o.WriteLine($"mu0 = {ResponseOptions.Format(mu0)} {model.Unit.Symbol()}; mesh {r.Samples.Mesh} ({r.Samples.Count} samples, {r.Samples.RefinedCells} refined cells)");
             o.WriteLine($"unit of D: {(r.Unit == "1" ? "dimensionless (3D)" : "angstrom (2D)")}; point group of {r.PointGroupOrder} operations{(r.HasInversion ? " with inversion: D vanishes" : "")}");
             o.WriteLine($"allowed independent tensors: {r.Allowed!.Count}" + (r.Allowed.Count > 0 ? "; forbidden components: " + string.Join(" ", r.Forbidden!) : ""));
@@ -52,7 +49,7 @@ public static class DipoleCommand
             if (cone is not null)
                 o.WriteLine($"linear-cone limit of {cone.Cones} Weyl cones (any mu, T inside the linear range): [" + string.Join("; ", Enumerable.Range(0, 3).Select(a => string.Join(" ", cone.Tensor.Skip(3 * a).Take(3).Select(ResponseOptions.Format)))) + "]"
                             + (cone.Complete ? "" : $"; incomplete, left out: {string.Join("; ", cone.Skipped)}"));
-            o.WriteLine($"wrote {outPath} and {picture}");
+            o.WriteLine(CommonOptions.Wrote(outPath, picture));
             return ExitCodes.Success;
         });
         return command;

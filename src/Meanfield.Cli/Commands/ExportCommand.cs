@@ -16,13 +16,14 @@ public static class ExportCommand
         command.SetAction(parse =>
         {
             var outPath = parse.GetValue(output)!;
-            var ext = Path.GetExtension(outPath).ToLowerInvariant();
+            var ext = AtomicFile.IsStandardOutput(outPath) ? ".json" : Path.GetExtension(outPath).ToLowerInvariant();
+            var o = CommonOptions.Messages(parse, outPath);
             CommonOptions.RefuseOverwrite(parse.GetValue(solution.Input)!, [outPath]);
-            if (!ModelExport.Extensions.Contains(ext)) throw new UserInputException($"--out {outPath}: use a .json, .csv or .parquet file name");
-            var src = solution.Resolve(parse, parse.InvocationConfiguration.Output);
+            if (!ModelExport.Extensions.Contains(ext)) throw new UserInputException($"--out {outPath}: use a .json, .csv or .parquet file name, or - for JSON on standard output");
+            var src = solution.Resolve(parse, o);
             var model = ModelExport.Write(src, outPath);
-            parse.InvocationConfiguration.Output.WriteLine(
-                $"wrote {outPath} ({model.Elements.Count} matrix elements, {model.Header.Orbitals.Count * model.Header.Flavours.Count} basis states, mu = {model.Header.Mu:G10} {Units.EnergyUnits.Symbol(model.Header.Unit)})");
+            o.WriteLine(
+                $"wrote {(AtomicFile.IsStandardOutput(outPath) ? "standard output" : outPath)} ({model.Elements.Count} matrix elements, {model.Header.Orbitals.Count * model.Header.Flavours.Count} basis states, mu = {model.Header.Mu:G10} {Units.EnergyUnits.Symbol(model.Header.Unit)})");
             return ExitCodes.Success;
         });
         return command;

@@ -18,13 +18,13 @@ public static class FacetCommand
         var top = new Option<string?>("--top") { Description = "Site on the outermost atomic plane of the top face (default: the first site)" };
         var view = new Option<SurfaceView>("--view") { Description = "slab: slab bands; spectrum: surface spectral function along a path; arcs: its map at mu", DefaultValueFactory = _ => SurfaceView.Slab };
         var layers = new Option<int>("--layers") { Description = "Principal layers of the slab (at least 2)", DefaultValueFactory = _ => 16 };
-        var eta = new Option<double?>("--eta") { Description = "Broadening (model energy unit; default 4e-4 x the width of the heavy bands next to mu)" };
-        var window = new Option<double[]>("--window") { Description = "Energies E1 E2 relative to mu (default +-0.1 x that width)", Arity = new ArgumentArity(2, 2), AllowMultipleArgumentsPerToken = true };
+        var eta = new Option<string?>("--eta") { Description = "Broadening (0.01, 0.01meV; bare numbers in the model's energy unit; default 4e-4 x the width of the heavy bands next to mu)" };
+        var window = CommonOptions.Window("Energies E1 E2 relative to mu (-1 1, or -1meV 1meV; default +-0.1 x that width)");
         var path = new Option<string>("--path") { Description = "\"auto\" or surface-zone labels like \"G X M G\"", DefaultValueFactory = _ => "auto" };
         var points = new Option<int>("--points") { Description = "k-points along the path", DefaultValueFactory = _ => 240 };
         var energies = new Option<int>("--energies") { Description = "Energies of the path spectrum", DefaultValueFactory = _ => 200 };
         var grid = new Option<int>("--grid") { Description = "Points per side of the arc map", DefaultValueFactory = _ => 200 };
-        var skin = new Option<double[]>("--skin") { Description = "Extra potential SHIFT DEPTH: SHIFT (energy unit) on the outermost DEPTH elementary layers", Arity = new ArgumentArity(2, 2), AllowMultipleArgumentsPerToken = true };
+        var skin = new Option<string[]>("--skin") { Description = "Extra potential SHIFT DEPTH: SHIFT (an energy: 5, 5meV) on the outermost DEPTH elementary layers", Arity = new ArgumentArity(2, 2), AllowMultipleArgumentsPerToken = true };
         var both = new Option<bool>("--skin-both-faces") { Description = "Slab view: put the extra potential on the bottom face too" };
         var command = new Command("facet", "Spectra of a crystal face from the bulk saddle point: slab bands, semi-infinite surface spectral function, Fermi-arc map (table + PNG)")
             { output, plane, top, view, layers, eta, window, path, points, energies, grid, skin, both };
@@ -34,21 +34,21 @@ public static class FacetCommand
             var o = parse.InvocationConfiguration.Output;
             var outPath = parse.GetValue(output)!;
             if (Path.GetExtension(outPath).ToLowerInvariant() is not (".csv" or ".parquet")) throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name");
-            var s = parse.GetValue(skin) is { Length: 2 } sk ? sk : null;
-            if (s is not null && (s[1] != Math.Floor(s[1]) || s[1] < 0)) throw new UserInputException($"--skin {s[0]} {s[1]}: DEPTH must be a whole number of layers");
-            var w = parse.GetValue(window) is { Length: 2 } wv ? wv : null;
+            var src = solution.Resolve(parse, o);
+            var unit = src.Model.Unit;
+            var sk = parse.GetValue(skin) is { Length: 2 } given ? given : null;
+            if (sk is not null && !(int.TryParse(sk[1], System.Globalization.NumberStyles.None, CultureInfo.InvariantCulture, out _)))
+                throw new UserInputException($"--skin {sk[0]} {sk[1]}: DEPTH must be a whole number of layers");
             var request = new SurfaceRequest
             {
                 Plane = parse.GetValue(plane)!, Termination = parse.GetValue(top), View = parse.GetValue(view), Layers = parse.GetValue(layers),
-                Eta = parse.GetValue(eta), Window = w is null ? null : (w[0], w[1]), Path = parse.GetValue(path), Points = parse.GetValue(points),
-                Energies = parse.GetValue(energies), Grid = parse.GetValue(grid), SkinOnBothFaces = parse.GetValue(both),
-                Skin = s is null ? null : new SkinPotential(s[0], (int)s[1]),
+                Eta = parse.GetValue(eta) is { } e ? CommonOptions.ParseEnergy(e, unit, "--eta") : null, Window = CommonOptions.ParseWindow(parse.GetValue(window), unit),
+                Path = parse.GetValue(path), Points = parse.GetValue(points), Energies = parse.GetValue(energies), Grid = parse.GetValue(grid), SkinOnBothFaces = parse.GetValue(both),
+                Skin = sk is null ? null : new SkinPotential(CommonOptions.ParseEnergy(sk[0], unit, "--skin"), int.Parse(sk[1], CultureInfo.InvariantCulture)),
             };
-            var src = solution.Resolve(parse, o);
             var watch = System.Diagnostics.Stopwatch.StartNew();
             var report = SurfaceStudy.Run(src, request);
-            var meta = new Dictionary<string, string> { ["source"] = ResultProvenance.SourceFile(src), ["source_kind"] = src.OriginText, ["model_sha256"] = Provenance.Hash(src.Model.SourceText), ["tool_version"] = Provenance.ToolVersion };
-            SurfaceTableWriter.Write(report, outPath, meta);
+            SurfaceTableWriter.Write(report, outPath, ResultProvenance.Of(src));
             var picture = Path.ChangeExtension(outPath, ".png");
             var c = report.Cut;
             SurfacePlots.Save(report, picture, $"{src.Model.Name} ({string.Join("", c.Plane.Indices.H, c.Plane.Indices.K, c.Plane.Indices.L)}), {string.Join("+", c.TopSites)} on top");

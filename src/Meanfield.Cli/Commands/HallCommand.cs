@@ -21,24 +21,21 @@ public static class HallCommand
         solution.AddTo(command);
         command.SetAction(parse =>
         {
-            var o = parse.InvocationConfiguration.Output;
             var outPath = parse.GetValue(output)!;
-            if (Path.GetExtension(outPath).ToLowerInvariant() is not (".csv" or ".parquet")) throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name");
+            var o = CommonOptions.Messages(parse, outPath);
+            CommonOptions.CheckTableOut(outPath);
             var src = solution.Resolve(parse, o);
             var model = src.Model;
             if (model.IsMomentumFree) throw new UserInputException($"{model.SourcePath}: a momentum-free lattice has no Berry curvature");
-            double mu0 = ResponseOptions.ReferenceMu(src);
+            double mu0 = src.Mu;
             var (mu, t, mesh) = response.Parse(parse, mu0, model.Unit, positiveTemperature: false);
 
             var r = AnomalousHall.Compute(src.Hamiltonian, mu, t, mesh);
 
-            var meta = new Dictionary<string, string>
-            {
-                ["model"] = model.Name, ["source"] = ResultProvenance.SourceFile(src), ["source_kind"] = src.OriginText, ["model_sha256"] = Provenance.Hash(model.SourceText), ["tool_version"] = Provenance.ToolVersion,
-            };
+            var meta = new Dictionary<string, string>(ResultProvenance.Of(src));
             ResponseTables.WriteHall(r, outPath, mu0, model.Unit, meta);
-            var picture = Path.ChangeExtension(outPath, ".png");
-            ResponsePlots.SaveHall(r, picture, $"{model.Name}: anomalous Hall conductivity", mu0, model.Unit);
+            var picture = CommonOptions.PictureBeside(outPath);
+            if (picture is not null) ResponsePlots.SaveHall(r, picture, $"{model.Name}: anomalous Hall conductivity", mu0, model.Unit);
             string u = model.Unit.Symbol();
             o.WriteLine($"mu0 = {ResponseOptions.Format(mu0)} {u}; mesh {r.Samples.Mesh} ({r.Samples.Count} samples, {r.Samples.RefinedCells} refined cells)");
             o.WriteLine($"sign: sigma = -(e^2/hbar) Int f Omega; a filled band of Chern number C gives sigma_xy = -C e^2/h");
@@ -50,7 +47,7 @@ public static class HallCommand
                             + (r.Dimension == 3 ? $"sigma (yz, zx, xy) = ({ResponseOptions.Format(s.X)}, {ResponseOptions.Format(s.Y)}, {ResponseOptions.Format(s.Z)}) {r.Unit}"
                                                 : $"sigma_xy = {ResponseOptions.Format(s.Z)} e^2/h per layer ({ResponseOptions.Format(r.StackedSiemensPerCentimetre(s.Z))} S/cm for layers {ResponseOptions.Format(r.LayerSpacing)} angstrom apart)"));
             }
-            o.WriteLine($"wrote {outPath} and {picture}");
+            o.WriteLine(CommonOptions.Wrote(outPath, picture));
             return ExitCodes.Success;
         });
         return command;

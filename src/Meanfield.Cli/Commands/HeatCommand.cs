@@ -17,7 +17,7 @@ public static class HeatCommand
         var (input, set, temperature, mesh, output) = (CommonOptions.InputArgument(), CommonOptions.Set(), CommonOptions.Temperature(), CommonOptions.Mesh(), CommonOptions.Out());
         var tmin = new Option<string>("--tmin") { Description = "Lowest temperature: 0.05K, 0.004meV, or a bare number in the model's energy unit", Required = true };
         var tmax = new Option<string>("--tmax") { Description = "Highest temperature: 5K, 0.4meV, or a bare number in the model's energy unit", Required = true };
-        var points = new Option<int>("--points") { Description = "Temperatures in the table (the fits add a logarithmic grid of their own)", DefaultValueFactory = _ => 60 };
+        var points = new Option<int>("--temperature-points") { Description = "Temperatures in the table (the fits add a logarithmic grid of their own)", DefaultValueFactory = _ => 60 };
         var log = new Option<bool>("--log") { Description = "Space the table's temperatures logarithmically (default: linearly)" };
         var window = new Option<string[]>("--fit-window")
         {
@@ -40,8 +40,7 @@ public static class HeatCommand
             if (Path.GetExtension(outPath).ToLowerInvariant() is not (".csv" or ".parquet")) throw new UserInputException($"--out {outPath}: use a .csv or .parquet file name");
             foreach (var f in new[] { parse.GetValue(measured), parse.GetValue(reference) })
                 if (f is not null && !File.Exists(f)) throw new UserInputException($"{f}: file not found");
-            CommonOptions.RefuseOverwrite(parse.GetValue(input)!, [outPath, Path.ChangeExtension(outPath, ".residuals" + Path.GetExtension(outPath)), Path.ChangeExtension(outPath, ".png"),
-                                          Path.ChangeExtension(outPath, ".loglog.png")], parse.GetValue(measured), parse.GetValue(reference));
+            CommonOptions.RefuseOverwrite(parse.GetValue(input)!, HeatTableWriter.StudyFiles(outPath), parse.GetValue(measured), parse.GetValue(reference));
             var src = SolutionOptions.Open(parse.GetValue(input)!, parse.GetValue(set), parse.GetValue(temperature), parse.GetValue(mesh), false, o);
             // Temperatures read by the one grammar: a bare number is in the model's energy unit.
             var unit = src.Model.Unit;
@@ -49,16 +48,15 @@ public static class HeatCommand
             var request = new HeatStudyRequest
             {
                 MinTemperatureK = K(parse.GetValue(tmin)!, "--tmin"), MaxTemperatureK = K(parse.GetValue(tmax)!, "--tmax"),
-                Points = parse.GetValue(points), Logarithmic = parse.GetValue(log), FitWindowK = Window(parse.GetValue(window), K),
+                Points = parse.GetValue(points), Logarithmic = parse.GetValue(log), FitWindowK = CommonOptions.ParseTemperatureWindow(parse.GetValue(window), unit, "--fit-window") is { } fw ? (fw.Low * unit.Kelvins(), fw.High * unit.Kelvins()) : null,
                 MeasuredPath = parse.GetValue(measured), DebyeTemperatureK = parse.GetValue(debye) is { } d ? K(d, "--debye") : null, AtomsPerFormulaUnit = parse.GetValue(atoms),
                 ReferencePath = parse.GetValue(reference), FullMeanField = parse.GetValue(full), MeanFieldPoints = parse.GetValue(mfPoints),
                 DosMesh = parse.GetValue(dosMesh),
             };
-            try { request.Validate(); } catch (ArgumentException e) { throw new UserInputException(e.Message); }
             request = request with { Settings = CommonOptions.Settings(src.Model, parse.GetValue(temperature), parse.GetValue(mesh)) };
+            request.Validate();
             HeatStudyResult result;
             try { result = HeatStudy.Run(src.Model, src.Hamiltonian, src.Mu, request); }
-            catch (HeatDataError e) { throw new UserInputException(e.Message); }
             catch (InvalidOperationException e)
             {
                 parse.InvocationConfiguration.Error.WriteLine($"error: {e.Message}; nothing written");
@@ -70,13 +68,5 @@ public static class HeatCommand
             return ExitCodes.Success;
         });
         return command;
-    }
-
-    private static (double, double)? Window(string[]? w, Func<string, string, double> kelvin)
-    {
-        if (w is not { Length: > 0 } || (w.Length == 1 && w[0] == "auto")) return null;
-        if (w.Length == 2 && kelvin(w[0], "--fit-window") is var lo && kelvin(w[1], "--fit-window") is var hi && hi > lo)
-            return (lo, hi);
-        throw new UserInputException($"--fit-window {string.Join(" ", w)}: give two temperatures T1 < T2 (such as 0.1K 2K), or auto");
     }
 }

@@ -14,7 +14,7 @@ public static class InvariantsCommand
     public static Command Build()
     {
         var solution = new SolutionOptions();
-        var flow = new Option<string?>("--flow") { Description = "Write the Wannier-centre flow as a picture (.png or .svg) and a CSV table next to it" };
+        var flow = new Option<string?>("--flow") { Description = "Write the Wannier-centre flow as a picture (.png, .svg or .pdf) and a CSV table next to it" };
         var gapMesh = new Option<int>("--gap-mesh") { Description = "Mesh of the gap check (node search), 4..96", DefaultValueFactory = _ => 12 };
         var loops = new Option<int>("--loop-points") { Description = "k-points per Wilson loop, 8..512 (doubled where links are too small)", DefaultValueFactory = _ => 32 };
         var command = new Command("invariants", "Topological invariants of the filled bands: Z2 by parities and Wannier-centre flow, Chern number in 2D; exit 4 when there is no gap")
@@ -25,7 +25,7 @@ public static class InvariantsCommand
             var o = parse.InvocationConfiguration.Output;
             var err = parse.InvocationConfiguration.Error;
             var flowPath = parse.GetValue(flow);
-            if (flowPath is not null && Path.GetExtension(flowPath).ToLowerInvariant() is not (".png" or ".svg")) throw new UserInputException($"--flow {flowPath}: use a .png or .svg file name");
+            if (flowPath is not null) PlotStyle.CheckPictureName(flowPath, "--flow");
             int gm = parse.GetValue(gapMesh), lp = parse.GetValue(loops);
             if (gm is < 4 or > 96) throw new UserInputException($"--gap-mesh {gm}: use 4..96");
             if (lp is < 8 or > 512) throw new UserInputException($"--loop-points {lp}: use 8..512");

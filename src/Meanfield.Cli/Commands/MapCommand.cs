@@ -15,7 +15,7 @@ public static class MapCommand
         var contour = new Option<string?>("--contour") { Description = "Numeric column drawn as contour lines (e.g. r_f)" };
         var levels = new Option<int>("--levels") { Description = "Number of contour levels", DefaultValueFactory = _ => 8 };
         var title = new Option<string?>("--title") { Description = "Plot title" };
-        var output = new Option<string>("--out", "-o") { Description = "Image file: .png, or .svg for a vector picture", Required = true };
+        var output = new Option<string>("--out", "-o") { Description = "Picture file: " + Output.PlotStyle.PictureKinds, Required = true };
         var command = new Command("map", "Draw a scan result as a phase map over two of its axes") { input, x, y, color, contour, levels, title, output };
         command.SetAction(parse =>
         {

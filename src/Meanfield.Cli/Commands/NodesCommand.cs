@@ -20,24 +20,20 @@ public static class NodesCommand
         solution.AddTo(command);
         command.SetAction(parse =>
         {
-            var o = parse.InvocationConfiguration.Output;
             var err = parse.InvocationConfiguration.Error;
             var outPath = parse.GetValue(output)!;
-            if (!outPath.EndsWith(".json", StringComparison.OrdinalIgnoreCase)) throw new UserInputException($"--out {outPath}: use a .json file name");
+            var o = CommonOptions.Messages(parse, outPath);
+            if (!outPath.EndsWith(".json", StringComparison.OrdinalIgnoreCase) && !AtomicFile.IsStandardOutput(outPath))
+                throw new UserInputException($"--out {outPath}: use a .json file name, or - for standard output");
             int sm = CheckSearchMesh(parse.GetValue(searchMesh));
             CommonOptions.RefuseOverwrite(parse.GetValue(solution.Input)!, [outPath]);
             var src = solution.Resolve(parse, o);
             OccupiedBands(src);
             var digest = SpectrumSummary.Compute(src, new SpectrumRequest { SearchMesh = sm });
-            var prov = new Dictionary<string, string>
-            {
-                ["model"] = src.Model.Name, ["source"] = ResultProvenance.SourceFile(src), ["source_kind"] = src.OriginText, ["model_sha256"] = Provenance.Hash(src.Model.SourceText),
-                ["tool_version"] = Provenance.ToolVersion,
-            };
-            AtomicFile.WriteText(outPath, NodeReportJson.Build(src, digest, prov) + "\n");
+            AtomicFile.WriteText(outPath, NodeReportJson.Build(src, digest, new Dictionary<string, string>(ResultProvenance.Of(src))) + "\n");
             o.Write(NodeReportText.Format(src, digest));
             foreach (var w in digest.Nodes!.Warnings) err.WriteLine($"warning: {w}");
-            o.WriteLine($"wrote {outPath}");
+            o.WriteLine(AtomicFile.IsStandardOutput(outPath) ? "wrote the report to standard output" : $"wrote {outPath}");
             return ExitCodes.Success;
         });
         return command;

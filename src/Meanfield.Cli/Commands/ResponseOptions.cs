@@ -9,13 +9,10 @@ namespace Meanfield.Cli.Commands;
 internal sealed class ResponseOptions
 {
     /// <summary>--window MU1 MU2 (relative to mu0).</summary>
-    public Option<double[]> Window { get; } = new("--window")
-    {
-        Description = "Chemical potentials MU1 MU2 relative to the solution's mu (model energy unit)", Required = true,
-        Arity = new ArgumentArity(2, 2), AllowMultipleArgumentsPerToken = true,
-    };
-    /// <summary>--points: mu values in the window.</summary>
-    public Option<int> Points { get; } = new("--points") { Description = "Chemical potentials in the window (2..2001)", DefaultValueFactory = _ => 121 };
+    public Option<string[]> Window { get; } = CommonOptions.Window(
+        "Chemical potentials MU1 MU2 relative to the solution's mu (-2 2, or -2meV 2meV; bare numbers in the model's energy unit)", required: true);
+    /// <summary>--mu-points: mu values in the window.</summary>
+    public Option<int> Points { get; } = new("--mu-points") { Description = "Chemical potentials in the window (2..2001)", DefaultValueFactory = _ => 121 };
     /// <summary>--temperatures: comma-separated list.</summary>
     public Option<string> Temperatures { get; }
     /// <summary>--kmesh: response mesh divisions.</summary>
@@ -36,11 +33,11 @@ internal sealed class ResponseOptions
     /// <summary>mu grid, temperatures (energy unit) and mesh, checked.</summary>
     public (double[] Mu, double[] T, ResponseMesh Mesh) Parse(ParseResult parse, double mu0, EnergyUnit unit, bool positiveTemperature)
     {
-        var w = parse.GetValue(Window)!;
-        if (!(w[1] > w[0])) throw new UserInputException($"--window {w[0]} {w[1]}: MU2 must exceed MU1");
+        var (lo, hi) = CommonOptions.ParseWindow(parse.GetValue(Window), unit)
+                       ?? throw new UserInputException("--window: give two chemical potentials MU1 < MU2 relative to mu");
         int n = parse.GetValue(Points);
-        if (n is < 2 or > 2001) throw new UserInputException($"--points {n}: use 2..2001");
-        var mu = Enumerable.Range(0, n).Select(i => mu0 + w[0] + (w[1] - w[0]) * i / (n - 1)).ToArray();
+        if (n is < 2 or > 2001) throw new UserInputException($"--mu-points {n}: use 2..2001");
+        var mu = Enumerable.Range(0, n).Select(i => mu0 + lo + (hi - lo) * i / (n - 1)).ToArray();
         var t = parse.GetValue(Temperatures)!.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries)
             .Select(s => CommonOptions.ParseTemperature(s, unit, "--temperatures")).ToArray();
         if (t.Length == 0 || t.Length > 8) throw new UserInputException("--temperatures: give 1..8 temperatures");
@@ -53,13 +50,9 @@ internal sealed class ResponseOptions
             ThermalWidth = t.Any(x => x > 0) ? t.Where(x => x > 0).Min() : null,
             RefinementWindow = (mu[0] - 10 * tMax - 1e-9 * Math.Abs(mu0), mu[^1] + 10 * tMax + 1e-9 * Math.Abs(mu0)),
         };
-        try { mesh.Validate(); }
-        catch (ArgumentOutOfRangeException e) { throw new UserInputException(e.Message.Split(" (Parameter")[0]); }
+        mesh.Validate();
         return (mu, t, mesh);
     }
-
-    /// <summary>The chemical potential the window is relative to: the solution's, else the mesh Fermi level of the bare model.</summary>
-    public static double ReferenceMu(Solutions.Solution src) => src.Mu;
 
     /// <summary>Five significant digits, invariant culture.</summary>
     public static string Format(double v) => v.ToString("G5", CultureInfo.InvariantCulture);

@@ -94,27 +94,36 @@ public static class PhaseClassifier
         return new(phase, $"{label.Reason}; Z2 {x} ({z2.Reason})");
     }
 
-    /// <summary>
-    /// A phase in words for pictures and reports ("strong topological Kondo insulator"), from its file form; text that
-    /// is not a phase name is returned as it is.
-    /// </summary>
-    public static string Readable(string fileName) => Enum.GetValues<Phase>().FirstOrDefault(p => Name(p) == fileName, (Phase)(-1)) switch
+    /// <summary>A phase in words for pictures and reports ("strong topological Kondo insulator"), one for every <see cref="Phase"/>.</summary>
+    /// <exception cref="ArgumentOutOfRangeException">A value outside the enum.</exception>
+    public static string Readable(Phase phase) => phase switch
     {
+        Phase.Decoupled => "decoupled local moments",
         Phase.KondoInsulator => "Kondo insulator (class not settled)",
-        Phase.WeylSemimetal => "Weyl semimetal",
-        Phase.DiracSemimetal => "Dirac semimetal",
-        Phase.WeylSemimetalWithPockets => "Weyl semimetal with pockets",
-        Phase.DiracSemimetalWithPockets => "Dirac semimetal with pockets",
         Phase.TrivialKondoInsulator => "trivial Kondo insulator",
         Phase.WeakTopologicalKondoInsulator => "weak topological Kondo insulator",
         Phase.StrongTopologicalKondoInsulator => "strong topological Kondo insulator",
         Phase.TopologicalKondoInsulator => "topological Kondo insulator (2D)",
-        Phase.Decoupled => "decoupled local moments",
+        Phase.WeylSemimetal => "Weyl semimetal",
+        Phase.DiracSemimetal => "Dirac semimetal",
+        Phase.WeylSemimetalWithPockets => "Weyl semimetal with pockets",
+        Phase.DiracSemimetalWithPockets => "Dirac semimetal with pockets",
         Phase.NodalLine => "nodal line",
-        Phase.HeavyMetal => "heavy Fermi liquid",
-        Phase.Unresolved => "unresolved (refine)",
-        _ => fileName,
+        Phase.HeavyMetal => "heavy Fermi liquid (metal)",
+        Phase.Unresolved => "unresolved (refine and rerun)",
+        _ => throw new ArgumentOutOfRangeException(nameof(phase), phase, "no readable name for this phase"),
     };
+
+    /// <summary>
+    /// The words for a phase given in its file form ("weyl-semimetal"); text that is not a phase name (another text
+    /// column, a phase of a newer file) is returned as it is.
+    /// </summary>
+    public static string Readable(string fileName)
+    {
+        foreach (var p in Enum.GetValues<Phase>())
+            if (Name(p) == fileName) return Readable(p);
+        return fileName;
+    }
 
     /// <summary>File form of a phase: lower-case words joined by '-'.</summary>
     public static string Name(Phase phase) => phase switch

@@ -41,12 +41,12 @@ public static class ScanBenchmark
     /// The scan file <paramref name="path"/> resampled to <paramref name="points"/> values per axis over the same range
     /// (same spacing), solved on a <paramref name="mesh"/> mesh with the node and DOS columns on.
     /// </summary>
-    /// <exception cref="ArgumentOutOfRangeException">Fewer than 2 points or a mesh below 2.</exception>
+    /// <exception cref="RequestError">Fewer than 2 points or a mesh below 2.</exception>
     /// <exception cref="ScanFileError">The scan file does not read.</exception>
     public static ScanDefinition Resampled(string path, int points, int mesh)
     {
-        if (points < 2) throw new ArgumentOutOfRangeException(nameof(points), $"scan size {points}: need at least 2 points per axis");
-        if (mesh < 2) throw new ArgumentOutOfRangeException(nameof(mesh), $"scan mesh {mesh}: need at least 2 divisions");
+        if (points < 2) throw new RequestError($"--scan-size {points}: need at least 2 points per axis");
+        if (mesh < 2) throw new RequestError($"--scan-mesh {mesh}: need at least 2 divisions");
         var scan = ScanFileReader.Load(path);
         var axes = scan.Axes.Select(a => a with
         {

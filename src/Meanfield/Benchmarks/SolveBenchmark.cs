@@ -45,12 +45,12 @@ public sealed record SolveBenchmarkResult(int Mesh, int KPoints, int Bands, doub
 /// <summary>Measures full solves and single passes of a bound model (library side of `meanfield bench`).</summary>
 public static class SolveBenchmark
 {
-    /// <summary>Solves <paramref name="model"/> with <paramref name="settings"/>, digests it as `solve` does, then times single passes.</summary>
-    /// <exception cref="ArgumentException">A lattice without momentum.</exception>
+    /// <summary>Times a full solve of <paramref name="model"/>, its digest as `solve` makes it, and single passes over its mesh.</summary>
+    /// <exception cref="RequestError">A model without momentum, or one the solver refuses.</exception>
     public static SolveBenchmarkResult Run(BoundModel model, SolverSettings settings, CancellationToken ct = default)
     {
         var solver = new SaddlePointSolver(model, settings);
-        if (solver.StateSum is not MeshStateSum sum) throw new ArgumentException("the benchmark needs a lattice with momentum (a k-mesh)");
+        if (solver.StateSum is not MeshStateSum sum) throw new RequestError($"{model.SourcePath}: the benchmark needs a lattice with momentum (a k-mesh)");
         using var self = Process.GetCurrentProcess();
         var cpu0 = self.TotalProcessorTime;
         var clock = Stopwatch.StartNew();

@@ -160,6 +160,7 @@ public static class DosTabulation
     /// Energy at which the integrated DOS (ascending, on the same grid) reaches <paramref name="electrons"/>: linear
     /// between grid points; the middle of the plateau when the count is reached inside a gap.
     /// </summary>
+    /// <exception cref="RequestError">The count (the model's) lies outside what the DOS holds.</exception>
     public static double FermiEnergy(IReadOnlyList<double> energies, IReadOnlyList<double> integrated, double electrons)
     {
         double tol = 1e-9 * Math.Max(1, electrons);
@@ -173,7 +174,7 @@ public static class DosTabulation
                 double s = (electrons - integrated[i - 1]) / (integrated[i] - integrated[i - 1]);
                 return energies[i - 1] + s * (energies[i] - energies[i - 1]);
             }
-        throw new ArgumentException($"{electrons} electrons per cell: the DOS holds between {integrated[0]} and {integrated[^1]}");
+        throw new RequestError($"electrons_per_cell = {electrons:G6}: the DOS holds between {integrated[0]:G6} and {integrated[^1]:G6} states per cell");
     }
 
     private static TabulatedDos Build(IReadOnlyList<double> energies, IReadOnlyList<double> rho, IReadOnlyList<double> integrated,

@@ -39,20 +39,22 @@ public sealed record HeatStudyRequest
     /// <summary>Solver settings of the saddle point (its mesh sets the default DOS mesh; the full mean field re-solves with them).</summary>
     public SolverSettings? Settings { get; init; }
 
-    /// <summary><see cref="ArgumentException"/> naming the first inconsistent field.</summary>
+    /// <summary>Checks the request; the options named are those of `meanfield heat`, which fills these fields one to one.</summary>
+    /// <exception cref="RequestError">The first inconsistent field, named with its value.</exception>
+    /// <exception cref="ArgumentException">The full mean field is asked for without <see cref="Settings"/>.</exception>
     public void Validate()
     {
         if (!(MinTemperatureK > 0) || !double.IsFinite(MaxTemperatureK) || !(MaxTemperatureK > MinTemperatureK))
-            throw new ArgumentException($"temperatures {MinTemperatureK} to {MaxTemperatureK} K: need 0 < lowest < highest");
-        if (Points < 3) throw new ArgumentException($"{Points} temperatures: need at least 3");
-        if (FullMeanField && MeanFieldPoints < 5) throw new ArgumentException($"{MeanFieldPoints} mean-field temperatures: need at least 5");
-        if (FullMeanField && Settings is null) throw new ArgumentException("the full mean field needs the solver settings");
-        if (DosMesh is { } m && m < 4) throw new ArgumentException($"DOS mesh {m}: need at least 4");
-        if ((DebyeTemperatureK is null) != (AtomsPerFormulaUnit is null)) throw new ArgumentException("a Debye term needs both its temperature and the atoms per formula unit");
-        if (DebyeTemperatureK is { } th && (!(th > 0) || !(AtomsPerFormulaUnit > 0))) throw new ArgumentException($"Debye term {th} K, {AtomsPerFormulaUnit} atoms: both must be positive");
-        if (DebyeTemperatureK is not null && ReferencePath is not null) throw new ArgumentException("subtract either a Debye term or a reference compound, not both");
-        if ((DebyeTemperatureK is not null || ReferencePath is not null) && MeasuredPath is null) throw new ArgumentException("phonon subtraction acts on measured data, and none is given");
-        if (FitWindowK is { } w && !(w.Hi > w.Lo && w.Lo >= 0)) throw new ArgumentException($"fit window {w.Lo}-{w.Hi} K: need 0 <= T1 < T2");
+            throw new RequestError($"--tmin {MinTemperatureK:G6} K, --tmax {MaxTemperatureK:G6} K: need 0 < lowest < highest");
+        if (Points < 3) throw new RequestError($"--points {Points}: need at least 3 temperatures");
+        if (FullMeanField && MeanFieldPoints < 5) throw new RequestError($"--mf-points {MeanFieldPoints}: need at least 5 mean-field temperatures");
+        if (FullMeanField && Settings is null) throw new ArgumentException("the full mean field needs the solver settings (HeatStudyRequest.Settings)");
+        if (DosMesh is { } m && m < 4) throw new RequestError($"--dos-mesh {m}: need at least 4");
+        if ((DebyeTemperatureK is null) != (AtomsPerFormulaUnit is null)) throw new RequestError("--debye and --atoms: a Debye term needs both its temperature and the atoms per formula unit");
+        if (DebyeTemperatureK is { } th && (!(th > 0) || !(AtomsPerFormulaUnit > 0))) throw new RequestError($"--debye {th:G6} K, --atoms {AtomsPerFormulaUnit}: both must be positive");
+        if (DebyeTemperatureK is not null && ReferencePath is not null) throw new RequestError("--debye and --reference: subtract either a Debye term or a reference compound, not both");
+        if ((DebyeTemperatureK is not null || ReferencePath is not null) && MeasuredPath is null) throw new RequestError($"{(DebyeTemperatureK is not null ? "--debye" : "--reference")}: phonon subtraction acts on measured data, and none is given (--measured)");
+        if (FitWindowK is { } w && !(w.Hi > w.Lo && w.Lo >= 0)) throw new RequestError($"--fit-window {w.Lo:G6} K {w.Hi:G6} K: need 0 <= T1 < T2");
     }
 }
 
@@ -141,15 +143,15 @@ public static class HeatStudy
     /// Runs the study for <paramref name="model"/> with Bloch source <paramref name="hamiltonian"/> (renormalized, or
     /// bare without a correlated shell) and the saddle point's <paramref name="solutionMu"/> when known.
     /// </summary>
-    /// <exception cref="ArgumentException">A lattice without momentum, an inconsistent request, or a fit window with
-    /// too few points.</exception>
+    /// <exception cref="RequestError">A lattice without momentum, an inconsistent request, a fit window with too few
+    /// points, or the full mean field of a model without a correlated shell.</exception>
     /// <exception cref="HeatDataError">Bad measured or reference data (file, line, column).</exception>
     /// <exception cref="InvalidOperationException">The full mean-field sweep did not converge.</exception>
     public static HeatStudyResult Run(BoundModel model, IBlochSource hamiltonian, double? solutionMu, HeatStudyRequest request)
     {
         request.Validate();
         if (model.IsMomentumFree || model.Lattice.Dimension < 2)
-            throw new ArgumentException($"{model.SourcePath}: heat needs the quasiparticle DOS of a lattice with momentum (2D or 3D)");
+            throw new RequestError($"{model.SourcePath}: heat needs the quasiparticle DOS of a lattice with momentum (2D or 3D)");
         var measured = LoadMeasured(request);
         var notes = new List<string>();
         double k = model.Unit.Kelvins(), tMin = request.MinTemperatureK, tMax = request.MaxTemperatureK;
@@ -178,7 +180,7 @@ public static class HeatStudy
         var sommerfeld = SommerfeldFit.Fit(curve, expansion.WindowMinK, expansion.WindowMaxK);
         PowerLawFit? power = null;
         try { power = PowerLawFit.Fit(curve, expansion.WindowMinK, expansion.WindowMaxK); }
-        catch (ArgumentException e) when (e.Message.Contains("C > 0")) { notes.Add($"no power-law fit: {e.Message}"); }
+        catch (RequestError e) when (e.Message.Contains("C > 0")) { notes.Add($"no power-law fit: {e.Message}"); }
         double? departure = expansion.DepartureTemperature(curve, DeparturePercent);
 
         FermiLevelNodes? nodes = null;
@@ -290,7 +292,7 @@ public static class HeatStudy
 
     private static MeanFieldHeatSweep Sweep(BoundModel model, HeatStudyRequest r)
     {
-        if (model.Shells.Count == 0) throw new ArgumentException($"{model.SourcePath}: no correlated shell, so there is no mean field to re-solve");
+        if (model.Shells.Count == 0) throw new RequestError($"--full-mean-field: {model.SourcePath}: no correlated shell, so there is no mean field to re-solve");
         var settings = r.Settings!;
         var grid = MeanFieldHeat.Grid(r.MinTemperatureK, r.MaxTemperatureK, r.MeanFieldPoints);
         return MeanFieldHeat.Sweep((t, g) => new SaddlePointSolver(model, settings with { Temperature = t, InitialGuess = g }).Solve(),

@@ -49,15 +49,16 @@ public sealed record LowTemperatureExpansion(double Gamma, double GammaError, do
     /// <summary>
     /// Fit over the points with <paramref name="windowMinK"/> &lt;= T &lt;= <paramref name="windowMaxK"/> (K): three
     /// terms when the window holds at least 4 points and <paramref name="terms"/> is 3, else two (at least 3 points).
-    /// <see cref="ArgumentException"/> when the window holds fewer than 3 points or terms is not 2 or 3.
     /// </summary>
+    /// <exception cref="RequestError">The window holds fewer than 3 points.</exception>
+    /// <exception cref="ArgumentException"><paramref name="terms"/> is not 2 or 3.</exception>
     public static LowTemperatureExpansion Fit(HeatCurve curve, double windowMinK = 0,
                                               double windowMaxK = double.PositiveInfinity, int terms = 3)
     {
         if (terms is not (2 or 3)) throw new ArgumentException($"terms = {terms}: the expansion has 2 or 3 terms");
         var (x, y, s, lo, hi) = Select(curve, windowMinK, windowMaxK);
         if (x.Length < 3)
-            throw new ArgumentException(
+            throw new RequestError(
                 $"the fit C/T = gamma + beta T^2 has two parameters and needs at least 3 points in its window; " +
                 $"the window [{windowMinK}, {windowMaxK}] K holds {x.Length}");
         int p = terms == 3 && x.Length >= 4 ? 3 : 2;

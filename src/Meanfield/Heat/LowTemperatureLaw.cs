@@ -17,6 +17,8 @@ public static class LowTemperatureLaw
     /// fit meets <paramref name="criterion"/> &lt;= <paramref name="threshold"/>. Every window of 3 or more points is
     /// tried and the widest that passes wins (a noisy narrow window failing does not end the search).
     /// </summary>
+    /// <exception cref="ArgumentException">Selection by reduced chi^2 of a curve without uncertainties.</exception>
+    /// <exception cref="RequestError">Fewer than 3 points from <paramref name="windowMinK"/>, or no window passes.</exception>
     public static SommerfeldFit SelectWindow(HeatCurve curve, WindowCriterion criterion, double threshold,
                                              double windowMinK = 0)
     {
@@ -26,7 +28,7 @@ public static class LowTemperatureLaw
         while (first < curve.Count && curve.TemperaturesK[first] < windowMinK) first++;
         int available = curve.Count - first;
         if (available < 3)
-            throw new ArgumentException(
+            throw new RequestError(
                 $"window selection needs at least 3 points at or above {windowMinK} K (two-parameter fit); found {available}");
         SommerfeldFit? best = null;
         for (int last = first + 2; last < curve.Count; last++)
@@ -35,7 +37,7 @@ public static class LowTemperatureLaw
             double score = criterion == WindowCriterion.ReducedChiSquare ? fit.ReducedChiSquare : fit.MaxRelativeDeviation;
             if (score <= threshold) best = fit;
         }
-        return best ?? throw new ArgumentException(
+        return best ?? throw new RequestError(
             $"no window from {curve.TemperaturesK[first]} K meets {criterion} <= {threshold}");
     }
 

@@ -17,6 +17,8 @@ public sealed record PowerLawFit(double Amplitude, double LnAmplitudeError, doub
     /// <summary>Fitted C (J mol^-1 K^-1).</summary>
     public double MolarHeat(double temperatureK) => Amplitude * Math.Pow(temperatureK, Exponent);
 
+    /// <summary>Fit ln C = ln A + alpha ln T over the points with window min &lt;= T &lt;= window max (K).</summary>
+    /// <exception cref="RequestError">C &lt;= 0 in the window, or fewer than 3 points in it.</exception>
     public static PowerLawFit Fit(HeatCurve curve, double windowMinK = 0, double windowMaxK = double.PositiveInfinity)
     {
         var x = new List<double>();
@@ -28,7 +30,7 @@ public sealed record PowerLawFit(double Amplitude, double LnAmplitudeError, doub
             double t = curve.TemperaturesK[i], c = curve.MolarHeat[i];
             if (t < windowMinK || t > windowMaxK) continue;
             if (!(c > 0))
-                throw new ArgumentException($"a power-law fit needs C > 0; C = {c} J mol^-1 K^-1 at T = {t} K");
+                throw new RequestError($"a power-law fit needs C > 0; C = {c} J mol^-1 K^-1 at T = {t} K");
             if (double.IsNaN(lo)) lo = t;
             hi = t;
             x.Add(Math.Log(t));
@@ -36,7 +38,7 @@ public sealed record PowerLawFit(double Amplitude, double LnAmplitudeError, doub
             s?.Add(curve.Sigma![i] / c);
         }
         if (x.Count < 3)
-            throw new ArgumentException(
+            throw new RequestError(
                 $"the power-law fit C = A T^alpha has two parameters and needs at least 3 points in its window; " +
                 $"the window [{windowMinK}, {windowMaxK}] K holds {x.Count}");
         var line = StraightLineFit.Fit(x, y, s);

@@ -27,6 +27,7 @@ public sealed record SommerfeldFit(double Gamma, double GammaError, double Beta,
     public double COverT(double temperatureK) => Gamma + Beta * temperatureK * temperatureK;
 
     /// <summary>Fit <paramref name="curve"/> over the points with window min &lt;= T &lt;= window max (K).</summary>
+    /// <exception cref="RequestError">Fewer than 3 points in the window.</exception>
     public static SommerfeldFit Fit(HeatCurve curve, double windowMinK = 0, double windowMaxK = double.PositiveInfinity)
     {
         var (x, y, s, tLo, tHi) = Select(curve, windowMinK, windowMaxK);
@@ -59,7 +60,7 @@ public sealed record SommerfeldFit(double Gamma, double GammaError, double Beta,
             s?.Add(curve.Sigma![i] / t);
         }
         if (x.Count < 3)
-            throw new ArgumentException(
+            throw new RequestError(
                 $"the Sommerfeld fit C/T = gamma + beta T^2 has two parameters and needs at least 3 points in its window; " +
                 $"the window [{windowMinK}, {windowMaxK}] K holds {x.Count}");
         return (x, y, s, lo, hi);

@@ -18,6 +18,8 @@ public sealed class TabulatedDos
     /// <param name="electronsPerCell">Electrons per cell N_e that fill these states; fixes mu(T).</param>
     /// <param name="unit">Energy unit of the grid (temperatures on the API surface are kelvin).</param>
     /// <param name="formulaUnitsPerCell">Formula units per cell, for molar quantities.</param>
+    /// <exception cref="ArgumentException">A malformed grid (lengths, fewer than 2 points, not finite, negative, not ascending).</exception>
+    /// <exception cref="RequestError">The electron count (the model's) is not strictly between 0 and the states of the DOS.</exception>
     public TabulatedDos(IReadOnlyList<double> energies, IReadOnlyList<double> statesPerCellPerEnergy,
                         double electronsPerCell, EnergyUnit unit = EnergyUnit.MilliElectronVolt,
                         double formulaUnitsPerCell = 1)
@@ -42,8 +44,8 @@ public sealed class TabulatedDos
             }
         }
         if (!(electronsPerCell > 0 && electronsPerCell < TotalStates))
-            throw new ArgumentException(
-                $"electrons per cell {electronsPerCell} must lie strictly between 0 and the {TotalStates} states of the DOS");
+            throw new RequestError(
+                $"electrons_per_cell = {electronsPerCell:G6}: must lie strictly between 0 and the {TotalStates:G6} states of the DOS");
         ElectronsPerCell = electronsPerCell;
         Unit = unit;
         FormulaUnitsPerCell = formulaUnitsPerCell;

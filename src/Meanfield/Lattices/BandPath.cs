@@ -15,25 +15,28 @@ public sealed class BandPath
     /// <summary>The continuous pieces of the path, each with at least two points.</summary>
     public IReadOnlyList<IReadOnlyList<PathPoint>> Segments { get; }
 
+    /// <summary>A path of the given pieces.</summary>
+    /// <exception cref="RequestError">No piece, a piece of fewer than two points, or two consecutive points that coincide
+    /// (a path as the user wrote it).</exception>
     public BandPath(Lattice lattice, IReadOnlyList<IReadOnlyList<PathPoint>> segments)
     {
-        if (segments.Count == 0) throw new ArgumentException("A band path needs at least one segment.");
+        if (segments.Count == 0) throw new RequestError("A band path needs at least one segment.");
         foreach (var seg in segments)
         {
             if (seg.Count < 2)
-                throw new ArgumentException($"Every piece of a band path needs at least two points; '{Describe(seg)}' has {seg.Count}.");
+                throw new RequestError($"Every piece of a band path needs at least two points; '{Describe(seg)}' has {seg.Count}.");
             for (int i = 1; i < seg.Count; i++)
                 if ((seg[i].K - seg[i - 1].K).Norm < 1e-12)
-                    throw new ArgumentException($"Consecutive path points {seg[i - 1].Label} and {seg[i].Label} coincide.");
+                    throw new RequestError($"Consecutive path points {seg[i - 1].Label} and {seg[i].Label} coincide.");
         }
         Lattice = lattice; Segments = segments;
     }
 
     /// <summary>The standard path of a built-in lattice (Setyawan &amp; Curtarolo 2010).</summary>
-    /// <exception cref="ArgumentException">The lattice has no standard path (explicit vectors, momentum-free).</exception>
+    /// <exception cref="RequestError">The lattice has no standard path (explicit vectors, momentum-free).</exception>
     public static BandPath Default(Lattice lattice)
     {
-        var spec = HighSymmetryPoints.DefaultPath(lattice.Kind) ?? throw new ArgumentException(
+        var spec = HighSymmetryPoints.DefaultPath(lattice.Kind) ?? throw new RequestError(
             lattice.Kind.IsMomentumFree()
                 ? $"Lattice kind {lattice.Kind} has no momentum and no band path."
                 : $"Lattice kind {lattice.Kind} has no standard band path: give one with --path in reduced coordinates, " +
@@ -42,12 +45,12 @@ public sealed class BandPath
     }
 
     /// <summary>Reads a path written as text (see the class summary).</summary>
-    /// <exception cref="ArgumentException">Unknown label (the message names it and lists the valid ones), malformed coordinates, or a piece with fewer than two points.</exception>
+    /// <exception cref="RequestError">Unknown label (the message names it and lists the valid ones), malformed coordinates, or a piece with fewer than two points.</exception>
     public static BandPath Parse(string spec, Lattice lattice)
     {
         if (lattice.Kind.IsMomentumFree())
-            throw new ArgumentException($"Lattice kind {lattice.Kind} has no momentum and no band path.");
-        if (string.IsNullOrWhiteSpace(spec)) throw new ArgumentException("The band path is empty.");
+            throw new RequestError($"Lattice kind {lattice.Kind} has no momentum and no band path.");
+        if (string.IsNullOrWhiteSpace(spec)) throw new RequestError("--path: the band path is empty.");
         var segments = new List<IReadOnlyList<PathPoint>>();
         foreach (var piece in spec.Split('|'))
         {
@@ -55,31 +58,36 @@ public sealed class BandPath
             foreach (var word in piece.Split((char[])[' ', '\t', '\r', '\n'], StringSplitOptions.RemoveEmptyEntries))
             {
                 // A coordinate token keeps its minus signs; elsewhere '-' joins labels.
-                if (word.Contains(',')) { points.Add(ParsePoint(word, lattice)); continue; }
+                if (word.Contains(',')) { points.Add(ParsePoint(word, lattice, spec)); continue; }
                 foreach (var token in word.Split('-', StringSplitOptions.RemoveEmptyEntries))
-                    points.Add(ParsePoint(token, lattice));
+                    points.Add(ParsePoint(token, lattice, spec));
             }
             segments.Add(points);
         }
-        return new BandPath(lattice, segments);
+        try { return new BandPath(lattice, segments); }
+        catch (RequestError e) { throw new RequestError($"--path \"{spec}\": {e.Message}", e); }
     }
 
-    private static PathPoint ParsePoint(string token, Lattice lattice)
+    private static PathPoint ParsePoint(string token, Lattice lattice, string spec)
     {
         int eq = token.IndexOf('=');
         string name = eq >= 0 ? token[..eq] : token;
         string body = eq >= 0 ? token[(eq + 1)..] : token;
-        if (!body.Contains(',')) return new PathPoint(HighSymmetryPoints.Canonical(token), HighSymmetryPoints.Cartesian(lattice, token));
+        if (!body.Contains(','))
+        {
+            try { return new PathPoint(HighSymmetryPoints.Canonical(token), HighSymmetryPoints.Cartesian(lattice, token)); }
+            catch (RequestError e) { throw new RequestError($"--path \"{spec}\": {e.Message}", e); }
+        }
         var parts = body.Split(',');
         int dim = Math.Max(lattice.Dimension, 2);
         if (parts.Length < 2 || parts.Length > 3 || (parts.Length == 2 && dim == 3))
-            throw new ArgumentException($"Path point '{token}': reduced coordinates need {dim} comma-separated numbers.");
+            throw new RequestError($"--path \"{spec}\": point '{token}': reduced coordinates need {dim} comma-separated numbers.");
         var u = new double[3];
         for (int i = 0; i < parts.Length; i++)
             if (!double.TryParse(parts[i], NumberStyles.Float, CultureInfo.InvariantCulture, out u[i]) || !double.IsFinite(u[i]))
-                throw new ArgumentException($"Path point '{token}': '{parts[i]}' is not a number.");
+                throw new RequestError($"--path \"{spec}\": point '{token}': '{parts[i]}' is not a number.");
         if (lattice.Dimension < 3 && u[2] != 0)
-            throw new ArgumentException($"Path point '{token}': a two-dimensional lattice has no third reduced coordinate.");
+            throw new RequestError($"--path \"{spec}\": point '{token}': a two-dimensional lattice has no third reduced coordinate.");
         return new PathPoint(eq >= 0 ? name.Trim() : body, lattice.Cartesian(u[0], u[1], u[2]));
     }
 
@@ -96,12 +104,13 @@ public sealed class BandPath
     /// (every leg at least one interval); both ends of every leg are included, so each vertex is sampled exactly once per
     /// piece, and a break repeats the path length of the previous point.
     /// </summary>
+    /// <exception cref="RequestError">Fewer points than the path has legs and pieces (a count the user chose).</exception>
     public BandPathSample Sample(int pointsTotal)
     {
         int legs = Segments.Sum(s => s.Count - 1);
         int minimum = legs + Segments.Count;
         if (pointsTotal < minimum)
-            throw new ArgumentOutOfRangeException(nameof(pointsTotal), $"The path {this} needs at least {minimum} k-points.");
+            throw new RequestError($"--points {pointsTotal}: the path {this} needs at least {minimum} k-points.");
         var legLength = Segments.SelectMany(s => Enumerable.Range(1, s.Count - 1).Select(i => (s[i].K - s[i - 1].K).Norm)).ToArray();
         var intervals = SplitIntervals(legLength, pointsTotal - Segments.Count);
 

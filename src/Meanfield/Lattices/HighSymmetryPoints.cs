@@ -75,14 +75,14 @@ public static class HighSymmetryPoints
     }
 
     /// <summary>Cartesian wave vector (inverse angstrom) of a labelled point of <paramref name="lattice"/>.</summary>
-    /// <exception cref="ArgumentException">The label is unknown for this lattice (the message lists the valid ones).</exception>
+    /// <exception cref="RequestError">The label is unknown for this lattice (the message lists the valid ones).</exception>
     public static Vec3 Cartesian(Lattice lattice, string label)
     {
-        var table = For(lattice.Kind) ?? throw new ArgumentException(
+        var table = For(lattice.Kind) ?? throw new RequestError(
             $"Lattice kind {lattice.Kind} has no named Brillouin-zone points: give the path as reduced coordinates, " +
             "for example \"0,0,0 0.5,0,0 0.5,0.5,0\".");
         if (!table.TryGetValue(Canonical(label), out var p))
-            throw new ArgumentException(
+            throw new RequestError(
                 $"Unknown Brillouin-zone label '{label}' for lattice kind {lattice.Kind}; valid labels: " +
                 $"{string.Join(", ", table.Keys.Select(k => k == "G" ? "G (Gamma)" : k))}.");
         return (2 * Math.PI / lattice.Constant) * p;

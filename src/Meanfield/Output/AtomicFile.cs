@@ -6,12 +6,35 @@ namespace Meanfield.Output;
 /// </summary>
 public static class AtomicFile
 {
+    /// <summary>The output name that means "standard output" (common practice of command-line tools).</summary>
+    public const string StandardOutputName = "-";
+
+    private static readonly AsyncLocal<Func<Stream>?> Sink = new();
+
+    /// <summary>
+    /// Where <see cref="StandardOutputName"/> writes, set by the host for the current asynchronous flow (the command
+    /// line sets its standard output); null (the default) refuses "-". The stream returned is flushed, not closed.
+    /// </summary>
+    public static Func<Stream>? StandardOutput { get => Sink.Value; set => Sink.Value = value; }
+
+    /// <summary>True when <paramref name="path"/> names standard output.</summary>
+    public static bool IsStandardOutput(string? path) => path == StandardOutputName;
+
     /// <summary>Runs <paramref name="write"/> on a temporary file in the target's folder, then moves it onto <paramref name="path"/>.</summary>
     /// <exception cref="DirectoryNotFoundException">The target's folder does not exist.</exception>
     /// <exception cref="OutputPathException">The file cannot be created, written or renamed into place; the message
     /// names the target, never the temporary sibling.</exception>
     public static async Task WriteAsync(string path, Func<Stream, Task> write)
     {
+        if (IsStandardOutput(path))
+        {
+            var open = StandardOutput ?? throw new OutputPathException("'-' (standard output) is not available here; give a file name");
+            var output = open();
+            // A writer that disposes the stream (StreamWriter, Parquet) must not close standard output.
+            await write(new KeepOpenStream(output));
+            await output.FlushAsync();
+            return;
+        }
         var full = Path.GetFullPath(path);
         var dir = Path.GetDirectoryName(full) ?? ".";
         if (!Directory.Exists(dir)) throw new DirectoryNotFoundException($"Output folder '{dir}' of '{path}' does not exist.");
@@ -61,5 +84,13 @@ public static class AtomicFile
     {
         try { return new FileStream(tmp, FileMode.CreateNew, FileAccess.Write, FileShare.None); }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException) { throw CannotWrite(path, dir, tmp, e); }
+    }
+
+    /// <summary>Passes writes through and ignores Dispose, so standard output stays open for later lines.</summary>
+    private sealed class KeepOpenStream(Stream inner) : WriteOnlyStream
+    {
+        public override void Flush() => inner.Flush();
+        public override void Write(ReadOnlySpan<byte> buffer) => inner.Write(buffer);
+        protected override void Dispose(bool disposing) { if (disposing) inner.Flush(); }
     }
 }

@@ -5,10 +5,11 @@ using ScottPlot;
 namespace Meanfield.Output;
 
 /// <summary>
-/// Band-structure plot: E_n(k) against path length, vertical lines and Γ/X/... tick labels at the path vertices,
-/// an optional dashed line at the chemical potential, and optionally each band coloured by its correlated-orbital weight
-/// with a colour bar. With a chemical potential the energy axis is E - mu and, unless a window is given, shows the
-/// heavy bands: see <see cref="HeavyWindow"/>.
+/// Band-structure plot: E_n(k) − mu against path length (absolute energies when no chemical potential is given),
+/// vertical lines and Γ/X/... tick labels at the path vertices, a dashed green line at mu (a colour the weight scale
+/// never uses), and optionally each band coloured by its correlated-orbital weight with a colour bar. The energy
+/// window defaults to <see cref="PlotWindow.AroundMu"/> over the states' correlated weights (the heavy bands a few of
+/// their widths around mu); a window can be given instead.
 /// </summary>
 public static class BandPlot
 {
@@ -17,16 +18,14 @@ public static class BandPlot
     /// <param name="chemicalPotential">Chemical potential (Fermi level) in the bands' own unit, or null for no line.</param>
     /// <param name="colourByCorrelatedWeight">Colour bands by correlated weight (blue = conduction, red = correlated).</param>
     /// <param name="labels">False draws no tick labels, title or axis labels (for tests of text rendering).</param>
-    /// <param name="window">Energy window (E1, E2) relative to mu, in <paramref name="unit"/>; null: <see cref="HeavyWindow"/>
-    /// with a chemical potential, the whole band range without. Ignored without a chemical potential.</param>
+    /// <param name="window">Energy window (E − mu, in <paramref name="unit"/>) of the picture; null for the default
+    /// around the heavy bands (<see cref="DefaultWindow"/>). Ignored without a chemical potential.</param>
     public static Plot Build(BandStructure bands, string title, EnergyUnit? unit = null, double? chemicalPotential = null,
-                             bool colourByCorrelatedWeight = false, bool labels = true, (double Lo, double Hi)? window = null,
-                             int? highestFilled = null)
+                             bool colourByCorrelatedWeight = false, bool labels = true, (double Low, double High)? window = null)
     {
         var u = unit ?? bands.Unit;
         double scale = bands.Unit.Joules() / u.Joules();
-        // Energies are drawn relative to mu when there is one (E - mu), absolute otherwise.
-        double shift = chemicalPotential ?? 0;
+        double shift = chemicalPotential ?? 0;   // energies are drawn as scale * (E - shift)
         var plot = labels
             ? PlotStyle.NewPlot(title, "Wave vector", PlotStyle.AxisLabel(chemicalPotential is null ? "Energy" : "E − μ", u.Symbol()))
             : PlotStyle.NewPlot("", "", "");
@@ -62,6 +61,8 @@ public static class BandPlot
             if (labels) bar.Label = "Correlated-orbital weight";
             bar.LabelStyle.FontName = PlotStyle.FontName;
             bar.LabelStyle.FontSize = PlotStyle.TickFontSize + 2;
+            bar.Axis.TickGenerator = new ScottPlot.TickGenerators.NumericManual(
+                [0, 0.25, 0.5, 0.75, 1], ["0", "0.25", "0.5", "0.75", "1"]);
         }
 
         double length = path.Length[path.Count - 1];
@@ -78,75 +79,40 @@ public static class BandPlot
             plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericManual();
 
         var (lo, hi) = bands.EnergyRange();
-        lo *= scale; hi *= scale;
+        lo = scale * (lo - shift); hi = scale * (hi - shift);
         if (chemicalPotential is double mu)
         {
-            // Green: a colour the blue-to-red weight map never uses.
-            var line = plot.Add.HorizontalLine(0, 1.5f, MuColour, LinePattern.Dashed);
+            var line = plot.Add.HorizontalLine(0, 1.5f, PlotStyle.ChemicalPotentialColour, LinePattern.Dashed);
             if (labels)
             {
-                line.LegendText = FormattableString.Invariant($"μ = {scale * mu:0.###} {u.Symbol()}");
+                line.LegendText = $"μ = {PlotStyle.Number(scale * mu)} {u.Symbol()}";
                 plot.ShowLegend(Alignment.UpperRight);
             }
-            if (window is { } w) (lo, hi) = w;
-            else if (HeavyWindow(bands, mu, highestFilled) is { } heavy) (lo, hi) = (scale * heavy.Lo, scale * heavy.Hi);
-            else (lo, hi) = (lo - scale * mu, hi - scale * mu);
+            (lo, hi) = window ?? DefaultWindow(bands, mu, u);
         }
         double pad = 0.05 * Math.Max(hi - lo, 1e-12 + 1e-9 * Math.Abs(hi));
         plot.Axes.SetLimits(0, length, lo - pad, hi + pad);
         return plot;
     }
 
-    /// <summary>Colour of the chemical-potential line.</summary>
-    public static readonly Color MuColour = new(0, 150, 60);
-
-    /// <summary>How far the default window reaches beyond the heavy span, as a share of its width, on each side.</summary>
-    public const double HeavyWindowMargin = 1.0;
-
-    /// <summary>Share of the path's states on the bands next to mu left out at each end of the heavy span (a quantile).</summary>
-    public const double HeavyQuantile = 0.2;
-
     /// <summary>
-    /// The default window relative to mu (bands' unit). Take the highest band that starts below mu and the lowest band
-    /// that ends above it; the heavy span runs between the <see cref="HeavyQuantile"/> and 1 - <see cref="HeavyQuantile"/>
-    /// quantiles of their energies along the path (the flat part of the heavy bands of a Kondo lattice fills most of
-    /// the path; their steep tails, tens to hundreds of times wider, cover less of it and are left out). The window is that span (always including
-    /// mu) widened by <see cref="HeavyWindowMargin"/> of its width on each side;
-    /// null when no band lies on either side of mu.
+    /// The default window (E − mu, in <paramref name="unit"/>): <see cref="PlotWindow.AroundMu"/> over every state on
+    /// the path weighted by its correlated-orbital weight; the whole range when the bands carry no correlated weight.
     /// </summary>
-    /// <param name="bands">The bands along the path.</param>
-    /// <param name="mu">The chemical potential (bands' unit).</param>
-    /// <param name="highestFilled">Index of the highest filled band at a whole filling (then bands highestFilled and
-    /// highestFilled + 1 are the pair); null to find the bands next to mu from their ranges.</param>
-    public static (double Lo, double Hi)? HeavyWindow(BandStructure bands, double mu, int? highestFilled = null)
+    public static (double Low, double High) DefaultWindow(BandStructure bands, double chemicalPotential, EnergyUnit? unit = null)
     {
-        int below = -1, above = -1;
-        var min = new double[bands.BandCount]; var max = new double[bands.BandCount];
-        for (int n = 0; n < bands.BandCount; n++)
-        {
-            min[n] = double.PositiveInfinity; max[n] = double.NegativeInfinity;
-            for (int k = 0; k < bands.Path.Count; k++) { double e = bands.Energy(k, n); min[n] = Math.Min(min[n], e); max[n] = Math.Max(max[n], e); }
-        }
-        for (int n = 0; n < bands.BandCount; n++)
-        {
-            if (min[n] < mu) below = n;
-            if (above < 0 && max[n] > mu) above = n;
-        }
-        if (highestFilled is int h && h >= 0 && h + 1 < bands.BandCount) (below, above) = (h, h + 1);
-        if (below < 0 || above < 0) return null;
-        var energies = new List<double>(2 * bands.Path.Count);
-        foreach (int n in below == above ? [below] : new[] { below, above })
-            for (int k = 0; k < bands.Path.Count; k++) energies.Add(bands.Energy(k, n));
-        energies.Sort();
-        double lo = energies[(int)(HeavyQuantile * (energies.Count - 1))], hi = energies[(int)Math.Ceiling((1 - HeavyQuantile) * (energies.Count - 1))];
-        lo = Math.Min(lo, mu); hi = Math.Max(hi, mu);
-        double margin = HeavyWindowMargin * (hi - lo);
-        return (lo - margin - mu, hi + margin - mu);
+        double scale = bands.Unit.Joules() / (unit ?? bands.Unit).Joules();
+        int n = bands.KCount * bands.BandCount, i = 0;
+        var e = new double[n]; var w = new double[n];
+        for (int k = 0; k < bands.KCount; k++)
+            for (int b = 0; b < bands.BandCount; b++, i++) { e[i] = scale * (bands.Energy(k, b) - chemicalPotential); w[i] = bands.CorrelatedWeight(k, b); }
+        var (lo, hi) = bands.EnergyRange();
+        return PlotWindow.AroundMu(e, w, scale * (lo - chemicalPotential), scale * (hi - chemicalPotential));
     }
 
-    /// <summary>Builds and saves the plot as .png or .svg (1000 x 700).</summary>
+    /// <summary>Builds and saves the plot as .png, .svg or .pdf by extension (1000 x 700).</summary>
+    /// <exception cref="OutputPathException">Another extension; nothing is written.</exception>
     public static void Save(BandStructure bands, string path, string title, EnergyUnit? unit = null,
-                            double? chemicalPotential = null, bool colourByCorrelatedWeight = false, (double Lo, double Hi)? window = null,
-                            int? highestFilled = null) =>
-        PlotStyle.Save(Build(bands, title, unit, chemicalPotential, colourByCorrelatedWeight, window: window, highestFilled: highestFilled), path);
+                            double? chemicalPotential = null, bool colourByCorrelatedWeight = false, (double Low, double High)? window = null) =>
+        PlotStyle.Save(Build(bands, title, unit, chemicalPotential, colourByCorrelatedWeight, window: window), path);
 }

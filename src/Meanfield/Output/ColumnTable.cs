@@ -28,7 +28,8 @@ public static class ColumnTable
         var order = new List<string>(); var values = new Dictionary<string, string>();
         foreach (var (k, v) in metadata) { if (!values.ContainsKey(k)) order.Add(k); values[k] = v; }
         metadata = [.. order.Select(k => new KeyValuePair<string, string>(k, values[k]))];
-        var ext = Path.GetExtension(path).ToLowerInvariant();
+        // Standard output takes the text form.
+        var ext = AtomicFile.IsStandardOutput(path) ? ".csv" : Path.GetExtension(path).ToLowerInvariant();
         var task = ext switch
         {
             ".csv" => AtomicFile.WriteAsync(path, s => WriteCsv(s, title, metadata, columns)),

@@ -8,8 +8,12 @@ namespace Meanfield.Output;
 /// </summary>
 internal sealed class CorrelatedWeightColormap : IColormap
 {
-    private static readonly Color Conduction = new(30, 90, 200);
-    private static readonly Color Correlated = new(215, 40, 30);
+    /// <summary>The colour of pure conduction states (weight 0), also the conduction part of DOS pictures.</summary>
+    public static readonly Color ConductionColour = new(30, 90, 200);
+    /// <summary>The colour of pure correlated states (weight 1), also the correlated part of DOS pictures.</summary>
+    public static readonly Color CorrelatedColour = new(215, 40, 30);
+    private static readonly Color Conduction = ConductionColour;
+    private static readonly Color Correlated = CorrelatedColour;
 
     public string Name => "conduction-correlated";
 

@@ -74,7 +74,8 @@ public static class HeatPlots
     private const string CoverTUnit = "mJ mol⁻¹ K⁻²", BetaUnit = "mJ mol⁻¹ K⁻⁴";
 
     private static string MeasuredLabel(MeasuredHeat m) =>
-        m.Subtracted.Length > 0 ? $"measured minus {m.Subtracted}" : "measured (nothing subtracted)";
+        // The table keeps the ASCII spelling; the picture writes the symbol.
+        m.Subtracted.Length > 0 ? $"measured minus {m.Subtracted.Replace("Theta_D", "Θ_D", StringComparison.Ordinal)}" : "measured (nothing subtracted)";
 
     private static void SommerfeldStudy(string path, HeatStudyResult r)
     {
@@ -85,7 +86,7 @@ public static class HeatPlots
         var span = plot.Add.HorizontalSpan(e.WindowMinK * e.WindowMinK, e.WindowMaxK * e.WindowMaxK);
         span.FillStyle.Color = Colors.Blue.WithAlpha(0.10);
         span.LineStyle.Width = 0;
-        span.LegendText = $"fit window {e.WindowMinK:G3}-{e.WindowMaxK:G3} K";
+        span.LegendText = $"fit window {e.WindowMinK:G3}–{e.WindowMaxK:G3} K";
         var idx = Enumerable.Range(0, r.Curve.Count).Where(i => r.Curve.TemperaturesK[i] <= top * (1 + 1e-12)).ToList();
         Line(plot, idx.Select(i => r.Curve.TemperaturesK[i] * r.Curve.TemperaturesK[i]),
              idx.Select(i => 1e3 * r.Curve.MolarHeat[i] / r.Curve.TemperaturesK[i]), "predicted (quasiparticles)", Colors.Blue, false);
@@ -129,7 +130,7 @@ public static class HeatPlots
         var span = plot.Add.HorizontalSpan(Math.Log10(e.WindowMinK), Math.Log10(e.WindowMaxK));
         span.FillStyle.Color = Colors.Blue.WithAlpha(0.10);
         span.LineStyle.Width = 0;
-        span.LegendText = $"fit window of γ + βT² + δT⁴, {e.WindowMinK:G3}-{e.WindowMaxK:G3} K";
+        span.LegendText = $"fit window of γ + βT² + δT⁴, {e.WindowMinK:G3}–{e.WindowMaxK:G3} K";
         static IEnumerable<double> Log(IEnumerable<double> v) => v.Select(Math.Log10);
         var c = r.Curve;
         var pos = Enumerable.Range(0, c.Count).Where(i => c.MolarHeat[i] > 0).ToList();

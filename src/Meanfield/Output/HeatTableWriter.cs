@@ -28,6 +28,10 @@ public static class HeatTableWriter
         ColumnTable.Write(path, title, [.. metadata], [.. columns.Select((c, i) => new TableData(c, values[i]))]);
     }
 
+    /// <summary>Every file <see cref="WriteStudy"/> may write for the table <paramref name="path"/>: table, residuals, the two pictures.</summary>
+    public static IReadOnlyList<string> StudyFiles(string path) =>
+        [path, Path.ChangeExtension(path, ".residuals" + Path.GetExtension(path)), Path.ChangeExtension(path, ".png"), Path.ChangeExtension(path, ".loglog.png")];
+
     /// <summary>
     /// Writes a heat study: the table at <paramref name="path"/> (.csv or .parquet), the measured-minus-predicted
     /// residuals beside it (.residuals.csv or .residuals.parquet) when measured data were given, and the two pictures

@@ -56,7 +56,7 @@ public static partial class OneBodyModelFiles
     /// <exception cref="ArgumentException">Another extension (callers check it first).</exception>
     public static void Save(OneBodyModel model, string path)
     {
-        var ext = Path.GetExtension(path).ToLowerInvariant();
+        var ext = AtomicFile.IsStandardOutput(path) ? ".json" : Path.GetExtension(path).ToLowerInvariant();
         switch (ext)
         {
             case ".json": AtomicFile.WriteText(path, ToJson(model)); break;

@@ -99,4 +99,4 @@ public static class OutputGuard
 }
 
 /// <summary>An output path that cannot be used: a folder, a missing folder, an input of the command, or unwritable.</summary>
-public sealed class OutputPathException(string message, Exception? inner = null) : ArgumentException(message, inner);
+public sealed class OutputPathException(string message, Exception? inner = null) : InputException(message, inner);

@@ -1,10 +1,11 @@
 using ScottPlot;
+using SkiaSharp;
 
 namespace Meanfield.Output;
 
 /// <summary>
 /// The house style of meanfield's plots: the bundled DejaVu Sans for all text, 1000 x 700 pixels, axis labels written
-/// "quantity (unit)", and the image format chosen by the file extension (.png or .svg), written atomically.
+/// "quantity (unit)", and the picture format chosen by the file extension (.png, .svg or .pdf, see <see cref="Save"/>), written atomically.
 /// </summary>
 public static class PlotStyle
 {
@@ -46,31 +47,111 @@ public static class PlotStyle
         plot.YLabel(yLabel, LabelFontSize);
         plot.Axes.Bottom.TickLabelStyle.FontSize = TickFontSize;
         plot.Axes.Left.TickLabelStyle.FontSize = TickFontSize;
-        plot.Axes.Bottom.TickGenerator = PlainTicks();
-        plot.Axes.Left.TickGenerator = PlainTicks();
+        plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericAutomatic { LabelFormatter = Number };
+        plot.Axes.Left.TickGenerator = new ScottPlot.TickGenerators.NumericAutomatic { LabelFormatter = Number, TargetTickCount = 8 };
         plot.HideGrid();
         return plot;
     }
 
-    /// <summary>Automatic numeric ticks written without thousands separators (1100, not 1,100), invariant culture.</summary>
-    public static ScottPlot.TickGenerators.NumericAutomatic PlainTicks() => new() { LabelFormatter = PlainNumber };
+    /// <summary>
+    /// A tick or legend number: invariant culture, no thousands separators, at most six significant digits, the
+    /// typographic minus sign (U+2212); exponent form only outside 1e-4..1e6.
+    /// </summary>
+    public static string Number(double v)
+    {
+        var inv = System.Globalization.CultureInfo.InvariantCulture;
+        double a = Math.Abs(v);
+        string text = a == 0 ? "0"
+            : a is >= 1e-4 and < 1e6 ? double.Parse(v.ToString("G6", inv), inv).ToString("0.##########", inv)
+            : v.ToString("0.#####E+0", inv);
+        return text.Replace('-', '\u2212');
+    }
 
-    /// <summary>A tick value as plain digits: "1100", "0.25", "-3.5e-05".</summary>
-    public static string PlainNumber(double v) =>
-        v == 0 ? "0" : Math.Abs(v) is >= 1e-3 and < 1e7 ? v.ToString("0.####", System.Globalization.CultureInfo.InvariantCulture)
-                     : v.ToString("G3", System.Globalization.CultureInfo.InvariantCulture);
+    /// <summary>The chemical-potential line's colour: a green that neither end nor the middle of the weight colour scale uses.</summary>
+    public static readonly Color ChemicalPotentialColour = new(0, 140, 70);
 
-    /// <summary>Saves as PNG or SVG by extension, through a temporary file.</summary>
-    /// <exception cref="ArgumentException">The extension is neither .png nor .svg.</exception>
-    public static void Save(Plot plot, string path, int width = Width, int height = Height)
+    /// <summary>The picture formats every plot writer accepts, by file extension.</summary>
+    public static readonly IReadOnlyList<string> PictureExtensions = [".png", ".svg", ".pdf"];
+
+    /// <summary>"a .png, .svg or .pdf file name", for option descriptions and messages.</summary>
+    public const string PictureKinds = ".png (raster), .svg or .pdf (vector)";
+
+    /// <summary>
+    /// Refuses a picture name whose extension is not one of <see cref="PictureExtensions"/>, before anything is
+    /// computed or written.
+    /// </summary>
+    /// <param name="path">The picture's path.</param>
+    /// <param name="option">The option that named it, for the message.</param>
+    /// <exception cref="OutputPathException">The extension is missing or unknown.</exception>
+    public static void CheckPictureName(string path, string option = "--out")
     {
         var ext = Path.GetExtension(path).ToLowerInvariant();
-        byte[] bytes = ext switch
+        if (!PictureExtensions.Contains(ext))
+            throw new OutputPathException($"{option} {path}: a picture is written as {PictureKinds}; " +
+                                          $"'{(ext.Length == 0 ? "(no extension)" : ext)}' is none of them");
+    }
+
+    /// <summary>
+    /// Saves a plot in the format its extension names, through a temporary file: .png through Skia's raster surface,
+    /// .svg through Skia's SVG canvas (paths and text, no embedded bitmap), .pdf through Skia's PDF document (one page,
+    /// one point per pixel, fonts embedded).
+    /// </summary>
+    /// <exception cref="OutputPathException">The extension is not .png, .svg or .pdf; nothing is written.</exception>
+    public static void Save(Plot plot, string path, int width = Width, int height = Height) =>
+        SavePanels([plot], path, width, height);
+
+    /// <summary>
+    /// Saves plots side by side, each <paramref name="panelWidth"/> x <paramref name="height"/>, as one picture in the
+    /// format its extension names (see <see cref="Save"/>): every format keeps the panels vector where it can.
+    /// </summary>
+    /// <exception cref="OutputPathException">The extension is not .png, .svg or .pdf; nothing is written.</exception>
+    public static void SavePanels(IReadOnlyList<Plot> panels, string path, int panelWidth = Width, int height = Height)
+    {
+        CheckPictureName(path, "picture");
+        int width = panelWidth * panels.Count;
+        void Draw(SKCanvas canvas)
         {
-            ".png" => plot.GetImageBytes(width, height, ImageFormat.Png),
-            ".svg" => System.Text.Encoding.UTF8.GetBytes(plot.GetSvgXml(width, height)),
-            _ => throw new ArgumentException($"Plot '{path}': unknown extension '{ext}'; use .png or .svg."),
-        };
-        AtomicFile.Write(path, s => s.Write(bytes));
+            canvas.Clear(SKColors.White);
+            for (int i = 0; i < panels.Count; i++)
+            {
+                canvas.Save();
+                canvas.Translate(i * panelWidth, 0);
+                canvas.ClipRect(new SKRect(0, 0, panelWidth, height));
+                panels[i].Render(canvas, panelWidth, height);
+                canvas.Restore();
+            }
+        }
+        switch (Path.GetExtension(path).ToLowerInvariant())
+        {
+            case ".png":
+            {
+                using var surface = SKSurface.Create(new SKImageInfo(width, height))
+                    ?? throw new InvalidOperationException($"picture {path}: Skia could not create a {width} x {height} surface");
+                Draw(surface.Canvas);
+                using var image = surface.Snapshot();
+                using var data = image.Encode(SKEncodedImageFormat.Png, 100);
+                AtomicFile.Write(path, s => data.SaveTo(s));
+                break;
+            }
+            case ".svg":
+                AtomicFile.Write(path, s =>
+                {
+                    // The SVG canvas writes its closing tag when disposed, so it must be disposed before the stream is.
+                    using var managed = new SKManagedWStream(s);
+                    using (var canvas = SKSvgCanvas.Create(new SKRect(0, 0, width, height), managed)) Draw(canvas);
+                });
+                break;
+            default:
+                AtomicFile.Write(path, s =>
+                {
+                    using var managed = new SKManagedWStream(s);
+                    using var document = SKDocument.CreatePdf(managed)
+                        ?? throw new InvalidOperationException($"picture {path}: this SkiaSharp build has no PDF back end");
+                    Draw(document.BeginPage(width, height));
+                    document.EndPage();
+                    document.Close();
+                });
+                break;
+        }
     }
 }

@@ -23,6 +23,9 @@ public sealed class ScanGrid
     public double? FixedTemperatureK { get; }
     public int Count { get; }
 
+    /// <summary>The grid of <paramref name="axes"/> (the first runs slowest) with fixed overrides, ties and a fixed temperature.</summary>
+    /// <exception cref="ArgumentException">No axis, or an axis without points (the scan reader refuses both first).</exception>
+    /// <exception cref="RequestError">More than 2^31 points in all.</exception>
     public ScanGrid(IReadOnlyList<ScanAxis> axes, IReadOnlyList<KeyValuePair<string, string>>? fixedOverrides = null,
                     IReadOnlyList<KeyValuePair<string, string>>? ties = null, double? temperatureK = null)
     {
@@ -39,7 +42,7 @@ public sealed class ScanGrid
         {
             _strides[d] = (int)count;
             count *= _sizes[d];
-            if (count > int.MaxValue) throw new ArgumentException("scan grid has more than 2^31 points", nameof(axes));
+            if (count > int.MaxValue) throw new RequestError($"scan grid of {string.Join(" x ", _sizes)} points: more than 2^31 points; use fewer points per axis");
         }
         Count = (int)count;
     }

@@ -10,6 +10,23 @@ public static class ScanMerge
     public static IReadOnlyList<string> ShardFiles(string directory) =>
         Directory.GetFiles(directory, "*.shard-*-of-*.parquet").Order(StringComparer.Ordinal).ToArray();
 
+    /// <summary>
+    /// The shard files named on a command line: a directory stands for its shard files, a file for itself.
+    /// </summary>
+    /// <exception cref="ScanError">A name is neither a file nor a directory, or no shard file is found.</exception>
+    public static IReadOnlyList<string> CollectShardFiles(IReadOnlyList<string> given)
+    {
+        var files = new List<string>();
+        foreach (var g in given)
+        {
+            if (Directory.Exists(g)) files.AddRange(ShardFiles(g));
+            else if (File.Exists(g)) files.Add(g);
+            else throw new ScanError($"{g}: no such file or directory");
+        }
+        if (files.Count == 0) throw new ScanError($"no shard files (*.shard-*-of-*.parquet) in {string.Join(", ", given)}");
+        return files;
+    }
+
     public static ScanMergeReport Merge(string directory, string output, bool allowIncomplete = false) =>
         MergeAsync(ShardFiles(directory), output, allowIncomplete).GetAwaiter().GetResult();
 

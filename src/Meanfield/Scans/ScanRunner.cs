@@ -82,7 +82,7 @@ public static class ScanRunner
         try { return solver(point, warm, ct); }
         catch (Exception e) when (!(e is OperationCanceledException && ct.IsCancellationRequested))
         {
-            string text = e is ScanError or Models.ModelError or ArgumentException or InvalidDataException ? e.Message : $"{e.GetType().Name}: {e.Message}";
+            string text = e is InputException or InvalidDataException ? e.Message : $"{e.GetType().Name}: {e.Message}";
             if (!text.Contains(point.Label, StringComparison.Ordinal)) text += $" (at {point.Label})";
             return new ScanPointResult { Converged = false, Error = text };
         }

@@ -139,11 +139,11 @@ public sealed class Solution
     /// The bare model on a <paramref name="meshDivisions"/> mesh at T = 0: mu from the ordered states (the middle of a
     /// window of no states is placed at a node energy, as for solutions).
     /// </summary>
-    /// <exception cref="ArgumentException">A momentum-free lattice, or a mesh below 2 divisions.</exception>
+    /// <exception cref="RequestError">A momentum-free lattice, or a mesh below 2 divisions.</exception>
     public static Solution Bare(BoundModel model, int meshDivisions)
     {
-        if (model.IsMomentumFree) throw new ArgumentException("a momentum-free lattice has no bare k-resolved bands");
-        if (meshDivisions < 2) throw new ArgumentException($"mesh must be at least 2 divisions, got {meshDivisions}");
+        if (model.IsMomentumFree) throw new RequestError($"{model.SourcePath}: a momentum-free lattice has no bare k-resolved bands");
+        if (meshDivisions < 2) throw new RequestError($"--mesh {meshDivisions}: must be at least 2 divisions");
         var ham = new BlochHamiltonian(model);
         var mesh = new KMesh(model.Lattice, meshDivisions, shifted: false);
         // One pass over the mesh gives both the ordered-state mu and the window of no states that placement refines.
@@ -159,12 +159,12 @@ public sealed class Solution
     /// An exported one-body model as a handle: its Bloch Hamiltonian, the exported mu and temperature (nothing is
     /// re-solved or re-placed) and the exported sampling mesh, or <paramref name="meshDivisions"/> when given.
     /// </summary>
-    /// <exception cref="ArgumentException">A mesh below 2 divisions.</exception>
+    /// <exception cref="RequestError">A mesh below 2 divisions.</exception>
     public static Solution FromExport(ExportedModel export, int? meshDivisions = null)
     {
         var model = export.Model;
         int divisions = meshDivisions ?? export.Header.Mesh ?? 16;
-        if (divisions < 2) throw new ArgumentException($"mesh must be at least 2 divisions, got {divisions}");
+        if (divisions < 2) throw new RequestError($"mesh {divisions}: must be at least 2 divisions");
         var mesh = new KMesh(model.Lattice, divisions, meshDivisions is null ? export.Header.Shifted : false);
         return new Solution(model, new BlochHamiltonian(model), null, null, mesh, new(export.Header.Mu, ChemicalPotentialRule.FromFile, null),
                             export.Header.Temperature, false, SolutionOrigin.ExportedModel, model.SourcePath) { ExportHeader = export.Header };

@@ -27,7 +27,8 @@ public sealed record BandFilling(double Mu, double GrandPotential, double[] FOcc
     /// <param name="temperature">T &gt;= 0 in the energy unit.</param>
     /// <param name="muHint">A guess for mu (the last one of an iteration) that starts Newton; optional.</param>
     /// <param name="tetrahedra">The tetrahedron filling of the table's mesh, used at T = 0 only; optional.</param>
-    /// <exception cref="ArgumentException">More electrons than states, or a table that does not match the mesh.</exception>
+    /// <exception cref="RequestError">More electrons (the model's electrons_per_cell) than states.</exception>
+    /// <exception cref="ArgumentException">A table that does not match the mesh.</exception>
     public static BandFilling Compute(StateTable table, double electrons, double temperature, double? muHint = null,
                                       TetrahedronFilling? tetrahedra = null)
     {
@@ -149,6 +150,6 @@ public sealed record BandFilling(double Mu, double GrandPotential, double[] FOcc
             double fraction = (electrons - cumulative) / w;
             return (keys[i], order[i], fraction, table.UniformWeights ? FermiLevelStatus.InsideBand : FermiLevelStatus.Regular, new(keys[i], keys[i]));
         }
-        throw new ArgumentException($"{electrons} electrons per cell exceed the {table.TotalWeight():G6} states sampled");
+        throw new RequestError($"electrons_per_cell = {electrons:G6} exceeds the {table.TotalWeight():G6} states sampled");
     }
 }

@@ -8,6 +8,12 @@ namespace Meanfield.Solver;
 /// </summary>
 public static class KondoTemperature
 {
+    /// <summary>
+    /// Narrowest relative bracket a bisection in T is asked for: far above the double-precision spacing (2.2e-16
+    /// relative), below which the midpoint equals an end and the bracket stops shrinking (common practice).
+    /// </summary>
+    public const double MinRelativeTolerance = 1e-12;
+
     /// <param name="solve">Solves the model at a temperature (energy unit), warm-started from the given amplitudes.</param>
     /// <param name="start">A low starting temperature (energy unit) where the coherent solution exists.</param>
     /// <param name="relativeTolerance">Bisection stops when the bracket is this narrow relative to T.</param>
@@ -47,9 +53,13 @@ public static class KondoTemperature
     /// dF/d(r^2) at r -&gt; 0 (<see cref="SaddlePointSolver.DecoupledStability"/>), negative below T_K^MF. Doubling from
     /// <paramref name="start"/> brackets the sign change, bisection narrows it. One zone pass per temperature.
     /// </summary>
+    /// <exception cref="RequestError"><paramref name="relativeTolerance"/> (the --relative-tolerance option) outside
+    /// [<see cref="MinRelativeTolerance"/>, 1): a bisection that could never stop.</exception>
     public static KondoScaleResult FindFromStability(Func<double, double> curvature, double start, double relativeTolerance = 1e-6,
                                                      int maxDoublings = 60, IProgress<string>? progress = null)
     {
+        if (!(relativeTolerance >= MinRelativeTolerance && relativeTolerance < 1))
+            throw new RequestError(FormattableString.Invariant($"--relative-tolerance {relativeTolerance:G6}: use a number from {MinRelativeTolerance:G3} up to (not including) 1"));
         double lowT = start, c0 = curvature(start);
         if (!(c0 < 0)) return new KondoScaleResult(null, [], $"the decoupled solution is stable already at the starting temperature {start:G4} (dF/dr^2 = {c0:G4}); start lower");
         double highT = double.NaN;

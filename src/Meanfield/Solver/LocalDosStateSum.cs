@@ -29,13 +29,16 @@ public sealed class LocalDosStateSum : IStateSum, ISaddlePointDerivatives
     public int Groups => _bare.GroupCount;
     public string Description { get; }
 
+    /// <summary>The state sum of a one-cell model over its model DOS with <paramref name="nodes"/> quadrature nodes.</summary>
+    /// <exception cref="RequestError">A bond of the model that leaves the cell.</exception>
+    /// <exception cref="ArgumentException">A DOS half-width that is not positive.</exception>
     public LocalDosStateSum(BlochHamiltonian bare, int nodes = 32768)
     {
         _bare = bare; _n = bare.Size;
         var model = bare.Model;
         foreach (var h in model.Hoppings)
             if (h.R != (0, 0, 0))
-                throw new ArgumentException($"momentum-free lattice: bond '{h.Source}' connects different cells; only local terms are allowed");
+                throw new RequestError($"momentum-free lattice: bond '{h.Source}' connects different cells; only local terms are allowed");
         double d = model.DosHalfWidth;
         if (!(d > 0)) throw new ArgumentException("momentum-free lattice needs a positive DOS half-width D");
         var (eps, weight) = model.Lattice.Kind == LatticeKind.FlatDos ? FlatNodes(d, nodes) : SemiEllipticNodes(d, nodes);

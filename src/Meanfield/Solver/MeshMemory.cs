@@ -41,13 +41,13 @@ public static class MeshMemory
     /// Refuses a mesh whose estimate exceeds <see cref="UsableFraction"/> of <see cref="Available"/>, or whose point count
     /// exceeds the index range; returns whether the eigenvectors fit too (for the analytic Jacobian), and the mesh.
     /// </summary>
-    /// <exception cref="ArgumentException">The mesh is too large for this machine (the message gives the estimate).</exception>
+    /// <exception cref="RequestError">The mesh is too large for this machine (the message gives the estimate).</exception>
     public static bool Check(BoundModel model, SolverSettings settings, SymmetryGroup group, out KMesh mesh)
     {
         var (wedge, full, bytes, withVectors) = Estimate(model, settings, group);
         long available = Available;
         if (full > int.MaxValue || bytes > UsableFraction * available)
-            throw new ArgumentException(
+            throw new RequestError(
                 $"mesh {settings.Mesh}: {full:N0} k-points ({wedge:N0} irreducible) need about {Gigabytes(bytes)} for the saddle point, " +
                 $"more than {100 * UsableFraction:F0}% of the {Gigabytes(available)} this machine offers" +
                 (full > int.MaxValue ? " (and more points than one mesh can index)" : "") + "; use a smaller --mesh");

@@ -13,7 +13,8 @@ namespace Meanfield.Solver;
 public sealed record MeshPlan(SymmetryGroup Group, MeshReduction? Reduction, long EstimatedBytes, long AvailableBytes, bool KeepsVectors)
 {
     /// <summary>Finds the symmetry, checks the memory and builds the wedge (no diagonalisation).</summary>
-    /// <exception cref="ArgumentException">A requested operation is broken, or the mesh does not fit in memory.</exception>
+    /// <exception cref="ArgumentException">A requested operation is broken.</exception>
+    /// <exception cref="RequestError">Settings out of range, or the mesh does not fit in memory.</exception>
     public static MeshPlan For(BoundModel model, SolverSettings settings)
     {
         settings.Validate();

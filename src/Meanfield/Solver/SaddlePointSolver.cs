@@ -33,6 +33,11 @@ public sealed partial class SaddlePointSolver
     public BlochHamiltonian Bare { get; }
     public IStateSum StateSum => _sum;
 
+    /// <summary>A solver of <paramref name="model"/>'s saddle point with <paramref name="settings"/>.</summary>
+    /// <exception cref="RequestError">Settings out of range, or a model with no saddle point to solve here: no correlated
+    /// shell, a finite U, a shell group of unequal N and Q or with Q outside (0, N), an impossible electron count, or a
+    /// mesh too large for the machine.</exception>
+    /// <exception cref="ArgumentException">A [solver] symmetry operation the model breaks.</exception>
     public SaddlePointSolver(BoundModel model, SolverSettings settings) : this(model, settings, null) { }
 
     /// <summary>A solver that reuses a symmetry group already found for the same model (the half-mesh start).</summary>
@@ -41,27 +46,27 @@ public sealed partial class SaddlePointSolver
         settings.Validate();
         _model = model; _settings = settings;
         Bare = new BlochHamiltonian(model);
-        if (model.Shells.Count == 0) throw new ArgumentException("the model has no correlated shell: there is no saddle point to solve");
+        if (model.Shells.Count == 0) throw new RequestError("the model has no correlated shell: there is no saddle point to solve");
         if (model.Shells.FirstOrDefault(s => s.HasFiniteU) is { } finite)
-            throw new ArgumentException($"shell group '{finite.Group}' has finite U = {finite.U:G6}: the lattice saddle point is infinite-U only so far " +
-                                        "(finite U is solved so far only for a one-band site on a model DOS, FiniteUHubbardDos); omit U to solve at infinite U");
+            throw new RequestError($"shell group '{finite.Group}' has finite U = {finite.U:G6}: the lattice saddle point is infinite-U only so far " +
+                                   "(finite U is solved so far only for a one-band site on a model DOS, FiniteUHubbardDos); omit U to solve at infinite U");
         var names = model.ShellGroups();
         _groups = new GroupInfo[names.Count];
         for (int g = 0; g < names.Count; g++)
         {
             var shells = model.Shells.Where(s => s.Group == names[g]).ToList();
             if (shells.Any(s => s.Constraint != shells[0].Constraint || s.Degeneracy != shells[0].Degeneracy))
-                throw new ArgumentException($"shell group '{names[g]}': all its shells need the same N and Q");
+                throw new RequestError($"shell group '{names[g]}': all its shells need the same N and Q");
             var q = shells[0].Constraint;
             if (!(q > 0 && q < shells[0].Degeneracy))
-                throw new ArgumentException($"shell group '{names[g]}': the constraint Q = {q} cannot be met by N = {shells[0].Degeneracy} f states and a boson (need 0 < Q < N)");
+                throw new RequestError($"shell group '{names[g]}': the constraint Q = {q} cannot be met by N = {shells[0].Degeneracy} f states and a boson (need 0 < Q < N)");
             _groups[g] = new GroupInfo(names[g], shells.Count, q, shells[0].Level, shells[0].Degeneracy);
         }
         _energyScale = 1.0;
         foreach (var s in model.Shells) _energyScale = Math.Max(_energyScale, Math.Abs(s.Level));
         foreach (var h in model.Hoppings) _energyScale = Math.Max(_energyScale, h.Amplitude.MaxAbs());
         if (model.ElectronsPerCell < 0 || model.ElectronsPerCell > model.StatesPerCell)
-            throw new ArgumentException($"{model.ElectronsPerCell} electrons per cell is impossible: the cell has {model.StatesPerCell} states");
+            throw new RequestError($"electrons_per_cell = {model.ElectronsPerCell} is impossible: the cell has {model.StatesPerCell} states");
         if (model.IsMomentumFree) _sum = new LocalDosStateSum(Bare, settings.DosNodes);
         else
         {

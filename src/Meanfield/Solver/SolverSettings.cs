@@ -32,12 +32,15 @@ public sealed record SolverSettings
     /// </summary>
     public bool AnalyticJacobian { get; init; } = true;
 
+    /// <summary>Checks the ranges of the settings a user can give (command line, [solver] table, scan file).</summary>
+    /// <exception cref="RequestError">Temperature, mesh, tolerance or iteration count out of range (named with the value).</exception>
+    /// <exception cref="ArgumentException">A DOS quadrature of fewer than 64 nodes.</exception>
     public void Validate()
     {
-        if (!(Temperature >= 0) || double.IsInfinity(Temperature)) throw new ArgumentException($"temperature must be >= 0, got {Temperature}");
-        if (Mesh < 2) throw new ArgumentException($"mesh must be at least 2 divisions, got {Mesh}");
-        if (!(Tolerance > 0)) throw new ArgumentException($"tolerance must be positive, got {Tolerance}");
-        if (MaxIterations < 1) throw new ArgumentException($"max iterations must be at least 1, got {MaxIterations}");
+        if (!(Temperature >= 0) || double.IsInfinity(Temperature)) throw new RequestError($"temperature {Temperature}: must be a finite number >= 0");
+        if (Mesh < 2) throw new RequestError($"mesh {Mesh}: must be at least 2 divisions");
+        if (!(Tolerance > 0)) throw new RequestError($"tolerance {Tolerance}: must be positive");
+        if (MaxIterations < 1) throw new RequestError($"max iterations {MaxIterations}: must be at least 1");
         if (DosNodes < 64) throw new ArgumentException($"DOS quadrature needs at least 64 nodes, got {DosNodes}");
     }
 }

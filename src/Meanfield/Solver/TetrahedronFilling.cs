@@ -100,14 +100,15 @@ public sealed class TetrahedronFilling
     /// ascending at each k) and fills <see cref="Weights"/>. <paramref name="muHint"/> (for example the last mu of an
     /// iteration) starts Newton when it lies inside the bracket.
     /// </summary>
-    /// <exception cref="ArgumentException">Wrong number of energies, or N_e outside [0, Bands].</exception>
+    /// <exception cref="ArgumentException">Wrong number of energies.</exception>
+    /// <exception cref="RequestError">N_e (the model's electrons_per_cell) outside [0, Bands].</exception>
     public TetrahedronFillingResult Solve(double[] energies, double electrons, double? muHint = null)
     {
         if (energies.Length != _weights.Length)
             throw new ArgumentException($"tetrahedron filling expects {_weights.Length} energies (mesh {Mesh} x {Bands} bands), got {energies.Length}");
         double tolerance = IntegerFillingTolerance * Math.Max(1.0, electrons);
         if (!(electrons >= -tolerance && electrons <= Bands + tolerance))
-            throw new ArgumentException($"{electrons} electrons per cell exceed the {Bands} bands sampled");
+            throw new RequestError($"electrons_per_cell = {electrons:G6} exceeds the {Bands} bands sampled");
         long t0 = System.Diagnostics.Stopwatch.GetTimestamp();
         BandRanges(energies);
         _scale = Math.Max(Math.Max(Math.Abs(_bandMin[0]), Math.Abs(_bandMax[Bands - 1])), double.Epsilon);

@@ -129,6 +129,48 @@ public sealed class SpectraCommandTests
         Assert.Equal(0.0, doc.RootElement.GetProperty("dos_at_mu").GetProperty("total").GetDouble(), 12);
     }
 
+    [Fact]
+    public void DashWritesTheResultToStandardOutputAndNothingElse()
+    {
+        // "-" as a file name means standard output (common practice of command-line tools); the messages go to
+        // standard error so the data can be piped, and no picture or file is written.
+        using var cli = new CliHarness();
+        var model = cli.Write("fkm.toml", CliHarness.FuKaneMeleToml);
+        Assert.Equal(ExitCodes.Success, cli.Run("nodes", model, "--set", "dt=0.3", "--set", "m=0.6", "--search-mesh", "8", "--out", "-"));
+        using (var doc = JsonDocument.Parse(cli.Out))
+            Assert.Equal("meanfield-nodes/2", doc.RootElement.GetProperty("format").GetString());
+        Assert.Contains("standard output", cli.Err);
+        Assert.Equal(ExitCodes.Success, cli.Run("dos", model, "--set", "dt=0.3", "--set", "m=1.5", "--dos-mesh", "6", "--window", "-0.5", "0.5", "--step", "0.05", "--out", "-"));
+        var lines = cli.Out.Split('\n', StringSplitOptions.RemoveEmptyEntries);
+        Assert.StartsWith("#", lines[0]);
+        Assert.Equal(21, lines.Count(l => !l.StartsWith('#')) - 1); // 21 energies after the header row
+        Assert.Contains("DOS at mu", cli.Err);
+        Assert.Equal(["fkm.toml"], cli.Files());
+    }
+
+    [Fact]
+    public void DosWindowIsRelativeToMuAndReadsUnits()
+    {
+        // The same window written in the model's unit (eV) and in meV gives the same energies: 1 eV = 1000 meV
+        // (SI brochure, 9th ed. (2019), prefixes); the window is E - mu, so the table spans mu - 0.5 eV .. mu + 0.5 eV.
+        using var cli = new CliHarness();
+        var model = cli.Write("fkm.toml", CliHarness.FuKaneMeleToml);
+        string a = cli.PathOf("a.csv"), b = cli.PathOf("b.csv");
+        Assert.Equal(ExitCodes.Success, cli.Run("dos", model, "--set", "dt=0.3", "--set", "m=1.5", "--dos-mesh", "6", "--window", "-0.5", "0.5", "--step", "0.01", "--out", a));
+        Assert.Equal(ExitCodes.Success, cli.Run("dos", model, "--set", "dt=0.3", "--set", "m=1.5", "--dos-mesh", "6", "--window", "-500meV", "500meV", "--step", "10meV", "--out", b));
+        var (headerA, colsA, rowsA) = ReadCsv(a);
+        var (_, _, rowsB) = ReadCsv(b);
+        Assert.Equal(rowsA.Length, rowsB.Length);
+        Assert.Equal(101, rowsA.Length);
+        int minus = Array.FindIndex(colsA, c => c.StartsWith("energy_minus_mu", StringComparison.Ordinal));
+        Assert.True(minus >= 0, string.Join(",", colsA));
+        Assert.Equal(-0.5, rowsA[0][minus], 9);
+        Assert.Equal(0.5, rowsA[^1][minus], 9);
+        for (int i = 0; i < rowsA.Length; i++) Assert.Equal(rowsA[i][minus], rowsB[i][minus], 9);
+        Assert.Equal(ExitCodes.BadInput, cli.Run("dos", model, "--window", "1", "-1", "--out", cli.PathOf("c.csv")));
+        Assert.False(File.Exists(cli.PathOf("c.csv")));
+    }
+
     [Theory]
     [InlineData(11)]
     [InlineData(29)]
@@ -166,7 +208,7 @@ public sealed class SpectraCommandTests
         using var cli = new CliHarness();
         var model = cli.Write("fkm.toml", CliHarness.FuKaneMeleToml);
         var csv = cli.PathOf("omega.csv");
-        Assert.Equal(ExitCodes.BadInput, cli.Run("curvature", model, "--plane", "0,0,0; 1,0,0; 2,0,0", "--out", csv));
+        Assert.Equal(ExitCodes.BadInput, cli.Run("curvature", model, "--corner", "0,0,0", "--sides", "1,0,0", "2,0,0", "--out", csv));
         Assert.Contains("does not cut the zone", cli.Err);
         Assert.Equal(["fkm.toml"], cli.Files());
     }
@@ -179,7 +221,7 @@ public sealed class SpectraCommandTests
         using var cli = new CliHarness();
         var model = cli.Write("fkm.toml", CliHarness.FuKaneMeleToml);
         var csv = cli.PathOf("omega.csv");
-        Assert.Equal(ExitCodes.Success, cli.Run("curvature", model, "--set", "dt=0.3", "--set", "m=0.85", "--plane", "0,0,0.1; 1,0,0; 0,1,0",
+        Assert.Equal(ExitCodes.Success, cli.Run("curvature", model, "--set", "dt=0.3", "--set", "m=0.85", "--corner", "0,0,0.1", "--sides", "1,0,0", "0,1,0",
             "--grid", "16", "--search-mesh", "8", "--out", csv));
         Assert.True(File.Exists(cli.PathOf("omega.png")));
         var (header, cols, rows) = ReadCsv(csv);

@@ -43,7 +43,7 @@ public sealed class TopologyCommandTests
         using var cli = new CliHarness();
         var model = cli.Write("fkm.toml", CliHarness.FuKaneMeleToml);
         var csv = cli.PathOf("sigma.csv");
-        Assert.Equal(ExitCodes.Success, cli.Run("hall", model, "--set", "dt=0.4", "--set", "m=0.1", "--window", "-1", "1", "--points", "5",
+        Assert.Equal(ExitCodes.Success, cli.Run("hall", model, "--set", "dt=0.4", "--set", "m=0.1", "--window", "-1", "1", "--mu-points", "5",
             "--kmesh", "6", "--out", csv));
         var lines = File.ReadAllLines(csv);
         Assert.Contains("# conductivity_unit = S/cm", lines);
@@ -61,7 +61,7 @@ public sealed class TopologyCommandTests
         using var cli = new CliHarness();
         var model = cli.Write("fkm.toml", CliHarness.FuKaneMeleToml);
         var pq = cli.PathOf("d.parquet");
-        Assert.Equal(ExitCodes.Success, cli.Run("dipole", model, "--set", "dt=0.4", "--set", "m=0.1", "--window", "-1", "1", "--points", "3",
+        Assert.Equal(ExitCodes.Success, cli.Run("dipole", model, "--set", "dt=0.4", "--set", "m=0.1", "--window", "-1", "1", "--mu-points", "3",
             "--temperatures", "0.1", "--kmesh", "6", "--out", pq));
         // C3v (zincblende with a [111] distortion): one antisymmetric tensor, zero diagonal (group theory, common practice).
         Assert.Contains("point group of 6 operations", cli.Out);

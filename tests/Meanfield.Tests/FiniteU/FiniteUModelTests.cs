@@ -54,7 +54,7 @@ public class FiniteUModelTests
     public void Lattice_solver_refuses_finite_U_instead_of_ignoring_it()
     {
         var model = ModelText.Bind(WithU("300"));
-        var ex = Assert.Throws<ArgumentException>(() => new SaddlePointSolver(model, new SolverSettings()));
+        var ex = Assert.Throws<RequestError>(() => new SaddlePointSolver(model, new SolverSettings()));
         Assert.Contains("finite U", ex.Message);
     }
 }

@@ -67,10 +67,10 @@ public class FitTests
     public void TooFewPointsInWindowIsAnArgumentErrorSayingHowManyAreNeeded()
     {
         var curve = Synthetic(0.1, 1e-3, 0.01, 7);
-        var ex = Assert.Throws<ArgumentException>(() => SommerfeldFit.Fit(curve, 0, 0.45));
+        var ex = Assert.Throws<RequestError>(() => SommerfeldFit.Fit(curve, 0, 0.45));
         Assert.Contains("at least 3 points", ex.Message);
         Assert.Contains("holds 2", ex.Message);
-        var ex2 = Assert.Throws<ArgumentException>(() => PowerLawFit.Fit(curve, 7.9, 10));
+        var ex2 = Assert.Throws<RequestError>(() => PowerLawFit.Fit(curve, 7.9, 10));
         Assert.Contains("at least 3 points", ex2.Message);
     }
 

@@ -113,7 +113,7 @@ public class BandPathTests
     [Fact]
     public void UnknownLabelIsNamedWithTheValidOnes()
     {
-        var ex = Assert.Throws<ArgumentException>(() => BandPath.Parse("G-X-Q-L", Lattice.Create(LatticeKind.FaceCentredCubic, A)));
+        var ex = Assert.Throws<RequestError>(() => BandPath.Parse("G-X-Q-L", Lattice.Create(LatticeKind.FaceCentredCubic, A)));
         Assert.Contains("'Q'", ex.Message);
         foreach (var l in new[] { "G", "X", "W", "K", "L", "U" }) Assert.Contains(l, ex.Message);
     }
@@ -122,24 +122,24 @@ public class BandPathTests
     public void ReducedCoordinatesWorkForExplicitLattices()
     {
         var lattice = new Lattice(LatticeKind.Explicit, A, 3, new(A, 0, 0), new(0, A, 0), new(0, 0, 2 * A));
-        Assert.Throws<ArgumentException>(() => BandPath.Default(lattice));
+        Assert.Throws<RequestError>(() => BandPath.Default(lattice));
         var path = BandPath.Parse("0,0,0 0.5,0,0 | Z=0,0,0.5 -0.5,0,0.5", lattice);
         var sample = path.Sample(40);
         Assert.Equal(["0,0,0", "0.5,0,0|Z", "-0.5,0,0.5"], sample.Ticks.Select(t => t.Label));
         // b3 = 2 pi / (2a) along z; the second piece runs along x at kz = pi/(2a).
         Assert.Equal(Math.PI / (2 * A), sample.K[sample.SegmentStarts[1]].Z, 12);
         Assert.Equal(-Math.PI / A, sample.K[^1].X, 12);
-        Assert.Throws<ArgumentException>(() => BandPath.Parse("0,0,0 0.5,x,0", lattice));
-        Assert.Throws<ArgumentException>(() => BandPath.Parse("G X", lattice));
+        Assert.Throws<RequestError>(() => BandPath.Parse("0,0,0 0.5,x,0", lattice));
+        Assert.Throws<RequestError>(() => BandPath.Parse("G X", lattice));
     }
 
     [Fact]
     public void DegeneratePathsAreRejected()
     {
         var sc = Lattice.Create(LatticeKind.SimpleCubic, A);
-        Assert.Throws<ArgumentException>(() => BandPath.Parse("G-X|M", sc));
-        Assert.Throws<ArgumentException>(() => BandPath.Parse("G-G-X", sc));
-        Assert.Throws<ArgumentOutOfRangeException>(() => BandPath.Parse("G-X-M", sc).Sample(2));
-        Assert.Throws<ArgumentException>(() => BandPath.Default(Lattice.Create(LatticeKind.FlatDos, A)));
+        Assert.Throws<RequestError>(() => BandPath.Parse("G-X|M", sc));
+        Assert.Throws<RequestError>(() => BandPath.Parse("G-G-X", sc));
+        Assert.Throws<RequestError>(() => BandPath.Parse("G-X-M", sc).Sample(2));
+        Assert.Throws<RequestError>(() => BandPath.Default(Lattice.Create(LatticeKind.FlatDos, A)));
     }
 }

@@ -46,21 +46,56 @@ public sealed class PhaseMapTests : IDisposable
         Assert.Contains("<svg", text);
         Assert.DoesNotContain("PNG", text[..Math.Min(200, text.Length)]);
         Assert.Contains("Weyl semimetal", text); // readable phase names in the legend, not file forms
-        string pdf = Path.Combine(_dir, "m.pdf");
-        Assert.ThrowsAny<ArgumentException>(() => PhaseMap.Save(data, "V", "ratio", "phase", pdf));
-        Assert.False(File.Exists(pdf));
+        string gif = Path.Combine(_dir, "m.gif");
+        Assert.Throws<Meanfield.Output.OutputPathException>(() => PhaseMap.Save(data, "V", "ratio", "phase", gif));
+        Assert.False(File.Exists(gif));
+    }
+}
+
+public sealed class PhaseMapLabelTests
+{
+    [Fact]
+    public void Every_phase_has_a_distinct_readable_name()
+    {
+        var names = Enum.GetValues<Meanfield.Analysis.Phase>().Select(p => Meanfield.Analysis.PhaseClassifier.Readable(p)).ToList();
+        Assert.Equal(names.Count, names.Distinct().Count());
+        Assert.All(names, n => { Assert.False(string.IsNullOrWhiteSpace(n)); Assert.DoesNotContain('-', n.Replace("(2D)", "")); });
+        Assert.Equal("strong topological Kondo insulator", Meanfield.Analysis.PhaseClassifier.Readable("strong-topological-kondo-insulator"));
+        Assert.Equal("Weyl semimetal with pockets", Meanfield.Analysis.PhaseClassifier.Readable("weyl-semimetal-with-pockets"));
+        Assert.Equal("some-other-text", Meanfield.Analysis.PhaseClassifier.Readable("some-other-text"));
     }
 
     [Fact]
-    public void Every_phase_has_a_readable_name()
+    public void Axes_are_titled_with_units_and_free_variables_by_their_tie()
     {
-        foreach (var p in Enum.GetValues<Meanfield.Analysis.Phase>())
-        {
-            string file = Meanfield.Analysis.PhaseClassifier.Name(p), words = Meanfield.Analysis.PhaseClassifier.Readable(file);
-            Assert.NotEqual(file, words);
-            Assert.DoesNotContain("-", words);
-        }
-        Assert.Equal(Enum.GetValues<Meanfield.Analysis.Phase>().Length,
-                     Enum.GetValues<Meanfield.Analysis.Phase>().Select(p => Meanfield.Analysis.PhaseClassifier.Readable(Meanfield.Analysis.PhaseClassifier.Name(p))).Distinct().Count());
+        var grid = ScanTestData.Grid(3, 3);   // V in the model's unit; ratio free, tied as m = ratio * lso
+        Assert.Equal("V (meV)", PhaseMapLabels.AxisTitle(grid.Axes[0], grid, "meV"));
+        Assert.Equal("m / lso", PhaseMapLabels.AxisTitle(grid.Axes[1], grid, "meV"));
+        var other = new ScanGrid([new ScanAxis("x", [1.0, 2], IsFreeVariable: true)], ties: [new("m", "x^2 + 1")]);
+        Assert.Equal("x  (m = x^2 + 1)", PhaseMapLabels.AxisTitle(other.Axes[0], other, "meV"));
+        var t = new ScanAxis("T", [1.0, 2], Unit: "K", KelvinPerUnit: 1);
+        Assert.Equal("T (K)", PhaseMapLabels.AxisTitle(t, other, "meV"));
+    }
+
+    [Theory]
+    [InlineData(180, 340, new[] { 200.0, 225, 250, 275, 300, 325 })]
+    [InlineData(0, 20, new[] { 0.0, 5, 10, 15, 20 })]
+    [InlineData(1000, 5000, new[] { 1000.0, 2000, 3000, 4000, 5000 })]
+    public void Ticks_are_round_and_inside_the_grid(double lo, double hi, double[] expected)
+    {
+        Assert.Equal(expected, PhaseMap.TickPositions(lo, hi), (a, b) => Math.Abs(a - b) < 1e-9);
+        Assert.Equal("5000", PhaseMap.TickLabel(5000));   // no thousands separators
+        Assert.Equal("0.25", PhaseMap.TickLabel(0.25));
+    }
+
+    // A log axis from 5 to 1000 (the T axis of the shipped T-V scan) carries major ticks at 1, 2 and 5 times each
+    // power of ten inside it and minor ticks at the other multiples (common practice for logarithmic axes).
+    [Fact]
+    public void Log_axes_have_major_ticks_at_one_two_five_per_decade()
+    {
+        var ticks = PhaseMap.LogTickPositions(Math.Log10(5), Math.Log10(1000));
+        var major = ticks.Where(t => t.Major).Select(t => Math.Round(Math.Pow(10, t.Log10), 6)).ToArray();
+        Assert.Equal([5.0, 10, 20, 50, 100, 200, 500, 1000], major);
+        Assert.Equal(4 + 6 + 6 + 0, ticks.Count(t => !t.Major)); // 6..9, 30,40,60..90, 300,400,600..900
     }
 }

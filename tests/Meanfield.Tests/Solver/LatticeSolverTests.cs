@@ -100,13 +100,13 @@ public class LatticeSolverTests(ITestOutputHelper output)
     public void ImpossibleInputIsRefused()
     {
         var model = TestModels.LocalHybridization(LatticeKind.SimpleCubic, 100, 150, -200, 2, electrons: 4.5);
-        var e1 = Assert.Throws<ArgumentException>(() => new SaddlePointSolver(model, new SolverSettings()));
+        var e1 = Assert.Throws<RequestError>(() => new SaddlePointSolver(model, new SolverSettings()));
         Assert.Contains("impossible", e1.Message);
         var badQ = TestModels.LocalHybridization(LatticeKind.SimpleCubic, 100, 150, -200, 2, electrons: 2, q: 2.0);
-        Assert.Contains("cannot be met", Assert.Throws<ArgumentException>(() => new SaddlePointSolver(badQ, new SolverSettings())).Message);
+        Assert.Contains("cannot be met", Assert.Throws<RequestError>(() => new SaddlePointSolver(badQ, new SolverSettings())).Message);
         var ok = TestModels.LocalHybridization(LatticeKind.SimpleCubic, 100, 150, -200, 2, electrons: 2);
-        Assert.Contains("temperature", Assert.Throws<ArgumentException>(() => new SaddlePointSolver(ok, new SolverSettings { Temperature = -1 })).Message);
-        Assert.Contains("mesh", Assert.Throws<ArgumentException>(() => new SaddlePointSolver(ok, new SolverSettings { Mesh = 1 })).Message);
+        Assert.Contains("temperature", Assert.Throws<RequestError>(() => new SaddlePointSolver(ok, new SolverSettings { Temperature = -1 })).Message);
+        Assert.Contains("mesh", Assert.Throws<RequestError>(() => new SaddlePointSolver(ok, new SolverSettings { Mesh = 1 })).Message);
     }
 
     [Fact]

@@ -214,7 +214,7 @@ public class TetrahedronFillingTests(ITestOutputHelper output)
         var mesh = new KMesh(Lattice.Create(LatticeKind.SimpleCubic, 1.0), 4);
         var tetra = new TetrahedronFilling(mesh, 2);
         Assert.Contains("expects 128 energies", Assert.Throws<ArgumentException>(() => tetra.Solve(new double[10], 1)).Message);
-        Assert.Contains("exceed", Assert.Throws<ArgumentException>(() => tetra.Solve(new double[128], 2.5)).Message);
+        Assert.Contains("exceed", Assert.Throws<RequestError>(() => tetra.Solve(new double[128], 2.5)).Message);
         Assert.Throws<ArgumentException>(() => new TetrahedronFilling(mesh, 0));
     }
 }

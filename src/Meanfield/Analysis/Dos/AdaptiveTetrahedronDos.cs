@@ -412,10 +412,11 @@ public sealed class AdaptiveTetrahedronDos
     /// middle of the plateau when it is reached across a gap (energy unit), with the DOS there. The search starts from
     /// a <paramref name="bracket"/> (lo, hi) that holds it, when known (for example two grid energies of a computed DOS).
     /// </summary>
-    /// <exception cref="ArgumentException">The count lies outside (0, bands) or outside the bracket.</exception>
+    /// <exception cref="RequestError">The count (the model's electrons_per_cell) lies outside (0, bands).</exception>
+    /// <exception cref="ArgumentException">The count lies outside the bracket.</exception>
     public (double Energy, double Dos) FermiLevel(double electrons, (double Lo, double Hi)? bracket = null)
     {
-        if (!(electrons > 0 && electrons < Bands)) throw new ArgumentException($"{electrons} electrons per cell: need 0 < N < {Bands}");
+        if (!(electrons > 0 && electrons < Bands)) throw new RequestError($"electrons_per_cell = {electrons:G6}: the DOS needs 0 < N < {Bands} (bands on the mesh)");
         double tol = 1e-9 * Math.Max(1, electrons);
         var (lo, hi) = bracket ?? Widen(SpectrumRange());
         // Zoom with DOS grids until few tetrahedra straddle the bracket, then bisect on those alone.

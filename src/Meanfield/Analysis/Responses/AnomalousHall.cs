@@ -35,13 +35,15 @@ public static class AnomalousHall
 {
     /// <summary>Samples the zone, then evaluates sigma on the grid.</summary>
     /// <exception cref="ArgumentException">A lattice without momentum, or empty grids.</exception>
-    /// <exception cref="ArgumentOutOfRangeException">A negative temperature or an invalid mesh.</exception>
+    /// <exception cref="ArgumentOutOfRangeException">A negative temperature.</exception>
+    /// <exception cref="RequestError">An invalid mesh, one too large to sample, or a non-finite chemical potential.</exception>
     public static HallResult Compute(IBlochSource source, IReadOnlyList<double> mu, IReadOnlyList<double> temperatures, ResponseMesh mesh) =>
         FromSamples(CurvatureSamples.Compute(source, mesh), mu, temperatures);
 
     /// <summary>Evaluates sigma on the grid from precomputed samples.</summary>
     /// <exception cref="ArgumentException">Empty grids.</exception>
     /// <exception cref="ArgumentOutOfRangeException">A negative or non-finite temperature.</exception>
+    /// <exception cref="RequestError">A non-finite chemical potential.</exception>
     public static HallResult FromSamples(CurvatureSamples s, IReadOnlyList<double> mu, IReadOnlyList<double> temperatures)
     {
         ResponseUnits.CheckGrid(mu, temperatures, allowZeroTemperature: true);

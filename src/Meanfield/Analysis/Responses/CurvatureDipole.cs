@@ -36,7 +36,8 @@ public static class CurvatureDipole
     /// Samples the zone, evaluates D on the grid and finds the point group of the model with the components it allows.
     /// </summary>
     /// <exception cref="ArgumentException">A lattice without momentum, or empty grids.</exception>
-    /// <exception cref="ArgumentOutOfRangeException">A temperature that is not positive, or an invalid mesh.</exception>
+    /// <exception cref="ArgumentOutOfRangeException">A temperature that is not positive.</exception>
+    /// <exception cref="RequestError">An invalid mesh, one too large to sample, or a non-finite chemical potential.</exception>
     public static DipoleResult Compute(IBlochSource source, IReadOnlyList<double> mu, IReadOnlyList<double> temperatures, ResponseMesh mesh)
     {
         ResponseUnits.CheckGrid(mu, temperatures, allowZeroTemperature: false);
@@ -51,6 +52,7 @@ public static class CurvatureDipole
     /// <summary>Evaluates D on the grid from precomputed samples.</summary>
     /// <exception cref="ArgumentException">Empty grids.</exception>
     /// <exception cref="ArgumentOutOfRangeException">A temperature that is not positive.</exception>
+    /// <exception cref="RequestError">A non-finite chemical potential.</exception>
     public static DipoleResult FromSamples(CurvatureSamples s, IReadOnlyList<double> mu, IReadOnlyList<double> temperatures)
     {
         ResponseUnits.CheckGrid(mu, temperatures, allowZeroTemperature: false);

@@ -27,11 +27,12 @@ public sealed record ResponseMesh
     public (double Min, double Max)? RefinementWindow { get; init; }
 
     /// <summary>Checks the ranges.</summary>
-    /// <exception cref="ArgumentOutOfRangeException">A setting outside its range.</exception>
+    /// <exception cref="RequestError">Divisions or refinement levels outside their range (the --kmesh and --refine options).</exception>
+    /// <exception cref="ArgumentOutOfRangeException">A thermal width or refinement flux that is not positive.</exception>
     public void Validate()
     {
-        if (Divisions is < 2 or > 256) throw new ArgumentOutOfRangeException(nameof(Divisions), $"mesh divisions {Divisions}: use 2..256");
-        if (RefinementLevels is < 0 or > 4) throw new ArgumentOutOfRangeException(nameof(RefinementLevels), $"refinement levels {RefinementLevels}: use 0..4");
+        if (Divisions is < 2 or > 256) throw new RequestError($"--kmesh {Divisions}: use 2..256 mesh divisions");
+        if (RefinementLevels is < 0 or > 4) throw new RequestError($"--refine {RefinementLevels}: use 0..4 refinement levels");
         if (ThermalWidth is { } kt && !(kt > 0)) throw new ArgumentOutOfRangeException(nameof(ThermalWidth), "the thermal width must be positive");
         if (!(RefinementFlux > 0)) throw new ArgumentOutOfRangeException(nameof(RefinementFlux), "the refinement flux must be positive");
     }
@@ -75,7 +76,7 @@ public sealed class CurvatureSamples
     /// <param name="source">The Bloch Hamiltonian.</param>
     /// <param name="mesh">The sampling.</param>
     /// <param name="sampleLimit">Most samples allowed; default: what fits in <see cref="Solver.MeshMemory.UsableFraction"/> of the machine's memory.</param>
-    /// <exception cref="ArgumentOutOfRangeException">An invalid <paramref name="mesh"/>, or a refinement that needs more samples than allowed (the message gives the numbers).</exception>
+    /// <exception cref="RequestError">An invalid <paramref name="mesh"/>, or a refinement that needs more samples than allowed (the message gives the numbers).</exception>
     public static CurvatureSamples Compute(IBlochSource source, ResponseMesh mesh, long? sampleLimit = null)
     {
         mesh.Validate();
@@ -115,8 +116,8 @@ public sealed class CurvatureSamples
             return g;
         }, _ => { });
         if (count.Exceeded)
-            throw new ArgumentOutOfRangeException(nameof(mesh), FormattableString.Invariant(
-                $"refinement of {cells.Length:N0} of {nk:N0} cells to {mesh.RefinementLevels} level(s) needs more than {budget:N0} samples (about {Solver.MeshMemory.Gigabytes(budget * BytesPerSample(nb))}, {100 * Solver.MeshMemory.UsableFraction:F0}% of this machine's memory); use fewer refinement levels or a coarser base mesh"));
+            throw new RequestError(FormattableString.Invariant(
+                $"--kmesh {mesh.Divisions} --refine {mesh.RefinementLevels}: refinement of {cells.Length:N0} of {nk:N0} cells to {mesh.RefinementLevels} level(s) needs more than {budget:N0} samples (about {Solver.MeshMemory.Gigabytes(budget * BytesPerSample(nb))}, {100 * Solver.MeshMemory.UsableFraction:F0}% of this machine's memory); use fewer refinement levels or a coarser base mesh"));
 
         int total = nk - cells.Length + sub.Sum(s => s.Weights.Count);
         var W = new double[total]; var E = new double[total * nb]; var V = new double[total * nb * 3]; var O = new double[total * nb * 3];

@@ -13,13 +13,14 @@ public static class ResponseUnits
     public const double CentimetresPerAngstrom = 1e-8;
 
     /// <summary>Both grids non-empty with finite values; temperatures non-negative (strictly positive when asked).</summary>
-    /// <exception cref="ArgumentException">An empty grid or a non-finite chemical potential.</exception>
+    /// <exception cref="ArgumentException">An empty grid.</exception>
+    /// <exception cref="RequestError">A chemical potential that is not a finite number (a --window end).</exception>
     /// <exception cref="ArgumentOutOfRangeException">A bad temperature.</exception>
     public static void CheckGrid(IReadOnlyList<double> mu, IReadOnlyList<double> temperatures, bool allowZeroTemperature)
     {
         if (mu.Count == 0) throw new ArgumentException("no chemical potentials given");
         if (temperatures.Count == 0) throw new ArgumentException("no temperatures given");
-        if (mu.Any(m => !double.IsFinite(m))) throw new ArgumentException("chemical potentials must be finite numbers");
+        if (mu.Any(m => !double.IsFinite(m))) throw new RequestError($"--window: chemical potentials must be finite numbers, found {mu.First(m => !double.IsFinite(m))}");
         foreach (var t in temperatures)
             if (!double.IsFinite(t) || t < 0 || (!allowZeroTemperature && t == 0))
                 throw new ArgumentOutOfRangeException(nameof(temperatures),

@@ -51,32 +51,32 @@ public sealed class LatticePlane
     }
 
     /// <summary>Reads "h,k,l" (commas or spaces; a leading '-' per index, e.g. "1,-1,0").</summary>
-    /// <exception cref="ArgumentException">Not three integers, all zero, larger than <see cref="MaxIndex"/>, or a lattice
+    /// <exception cref="RequestError">Not three integers, all zero, larger than <see cref="MaxIndex"/>, or a lattice
     /// that is not three-dimensional.</exception>
     public static LatticePlane Parse(string text, Lattice lattice)
     {
         var parts = text.Split([',', ' ', '\t'], StringSplitOptions.RemoveEmptyEntries);
         if (parts.Length != 3)
-            throw new ArgumentException($"surface indices '{text}': give three integers h,k,l, for example 0,0,1 or 1,-1,0");
+            throw new RequestError($"--plane '{text}': give three integers h,k,l, for example 0,0,1 or 1,-1,0");
         var v = new int[3];
         for (int i = 0; i < 3; i++)
             if (!int.TryParse(parts[i], NumberStyles.AllowLeadingSign, CultureInfo.InvariantCulture, out v[i]))
-                throw new ArgumentException($"surface indices '{text}': '{parts[i]}' is not an integer");
+                throw new RequestError($"--plane '{text}': '{parts[i]}' is not an integer");
         return FromIndices(lattice, v[0], v[1], v[2]);
     }
 
     /// <summary>The plane family (h k l); see the class summary for which cell the indices refer to.</summary>
-    /// <exception cref="ArgumentException">All indices zero (no plane), an index beyond <see cref="MaxIndex"/>, or a
+    /// <exception cref="RequestError">All indices zero (no plane), an index beyond <see cref="MaxIndex"/>, or a
     /// lattice that is not three-dimensional.</exception>
     public static LatticePlane FromIndices(Lattice lattice, int h, int k, int l)
     {
         if (lattice.Dimension != 3)
-            throw new ArgumentException(lattice.Kind.IsMomentumFree()
+            throw new RequestError(lattice.Kind.IsMomentumFree()
                 ? $"a momentum-free lattice ({lattice.Kind}) has no surfaces"
                 : $"a two-dimensional lattice ({lattice.Kind}) has no surface planes: surfaces need a 3D model");
-        if (h == 0 && k == 0 && l == 0) throw new ArgumentException("surface indices (0,0,0) do not define a lattice plane");
+        if (h == 0 && k == 0 && l == 0) throw new RequestError("--plane 0,0,0: surface indices (0,0,0) do not define a lattice plane");
         if (Math.Max(Math.Abs(h), Math.Max(Math.Abs(k), Math.Abs(l))) > MaxIndex)
-            throw new ArgumentException($"surface indices ({h},{k},{l}): indices above {MaxIndex} give impractically wide slabs");
+            throw new RequestError($"--plane {h},{k},{l}: indices above {MaxIndex} give impractically wide slabs");
         bool conventional = lattice.Kind is LatticeKind.SimpleCubic or LatticeKind.BodyCentredCubic
             or LatticeKind.FaceCentredCubic or LatticeKind.Diamond;
         (int, int, int) g;

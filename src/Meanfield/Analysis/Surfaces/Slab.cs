@@ -21,10 +21,10 @@ public sealed class Slab
     /// <summary>Matrix dimension: Layers x BlockSize.</summary>
     public int Size { get; }
 
-    /// <exception cref="ArgumentException">Fewer than <see cref="MinimumLayers"/> layers, or an invalid skin potential.</exception>
+    /// <exception cref="RequestError">Fewer than <see cref="MinimumLayers"/> layers, or an invalid skin potential.</exception>
     public Slab(SurfaceCut cut, int layers, SkinPotential? skin = null, bool skinOnBothFaces = false)
     {
-        if (layers < MinimumLayers) throw new ArgumentException($"slab of {layers} layer(s): a slab needs at least {MinimumLayers} principal layers");
+        if (layers < MinimumLayers) throw new RequestError($"--layers {layers}: a slab needs at least {MinimumLayers} principal layers");
         skin?.Validate();
         Cut = cut; Layers = layers; Skin = skin; SkinOnBothFaces = skinOnBothFaces;
         Size = layers * cut.BlockSize;

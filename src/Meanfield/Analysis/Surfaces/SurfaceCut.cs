@@ -51,16 +51,16 @@ public sealed class SurfaceCut
 
     /// <summary>Cuts <paramref name="model"/> along <paramref name="plane"/>; <paramref name="termination"/> names the
     /// outermost site of the top surface (default: the first site).</summary>
-    /// <exception cref="ArgumentException">Unknown termination site (with the closest name), a model that is not 3D.</exception>
+    /// <exception cref="RequestError">Unknown termination site (with the closest name), a model that is not 3D.</exception>
     public SurfaceCut(BoundModel model, LatticePlane plane, string? termination = null)
     {
-        if (model.Lattice.Dimension != 3) throw new ArgumentException($"{model.Name}: surfaces need a 3D model, this one is {model.Lattice.Dimension}D");
+        if (model.Lattice.Dimension != 3) throw new RequestError($"{model.Name}: surfaces need a 3D model, this one is {model.Lattice.Dimension}D");
         Model = model; Plane = plane; Zone = new SurfaceZone(plane);
         _f = model.Flavours; _size = model.BasisSize;
         var names = model.Sites.Select(s => s.Name).ToList();
         Termination = termination is null ? 0 : names.IndexOf(termination);
         if (Termination < 0)
-            throw new ArgumentException($"termination '{termination}': the model has no such site (sites: {string.Join(", ", names)}){NameSuggestion.Format(NameSuggestion.Closest(termination!, names))}");
+            throw new RequestError($"--top '{termination}': the model has no such site (sites: {string.Join(", ", names)}){NameSuggestion.Format(NameSuggestion.Closest(termination!, names))}");
         var (gx, gy, gz) = plane.Reciprocal;
         int sites = model.Sites.Count;
         var shift = new int[sites];
@@ -182,10 +182,10 @@ public sealed class SurfaceCut
 public sealed record SkinPotential(double Shift, int Depth)
 {
     /// <summary>Checks the depth (0..1000 elementary layers) and that the shift is finite.</summary>
-    /// <exception cref="ArgumentException">Negative or huge depth, or a shift that is not a finite number.</exception>
+    /// <exception cref="RequestError">Negative or huge depth, or a shift that is not a finite number.</exception>
     public void Validate()
     {
-        if (Depth is < 0 or > 1000) throw new ArgumentException($"surface potential depth {Depth}: use 0..1000 elementary layers");
-        if (!double.IsFinite(Shift)) throw new ArgumentException("surface potential: the shift must be a finite number");
+        if (Depth is < 0 or > 1000) throw new RequestError($"--skin {Shift:G6} {Depth}: the depth must be 0..1000 elementary layers");
+        if (!double.IsFinite(Shift)) throw new RequestError($"--skin {Shift} {Depth}: the shift must be a finite number");
     }
 }

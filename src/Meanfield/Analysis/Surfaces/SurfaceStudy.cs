@@ -80,7 +80,7 @@ public static class SurfaceStudy
     /// counts surface states around every projected node (<see cref="SurfaceLoops"/>) and traces the arcs
     /// (<see cref="FermiArcs"/>).
     /// </summary>
-    /// <exception cref="ArgumentException">Bad plane, unknown termination, 2D or momentum-free model, fewer than 2
+    /// <exception cref="RequestError">Bad plane, unknown termination, 2D or momentum-free model, fewer than 2
     /// layers, a bad path, non-positive eta, an empty window or out-of-range counts. Nothing is computed then.</exception>
     public static SurfaceReport Run(Solution solution, SurfaceRequest request)
     {
@@ -90,10 +90,10 @@ public static class SurfaceStudy
         var bonds = SurfaceCut.BondsOf(source);
         var cut = new SurfaceCut(bonds, plane, request.Termination);
         var slab = new Slab(cut, request.Layers, request.Skin, request.SkinOnBothFaces);
-        if (request.Energies is < 2 or > 5000) throw new ArgumentException($"energies {request.Energies}: use 2..5000");
-        if (request.Grid is < 2 or > 2000) throw new ArgumentException($"grid {request.Grid}: use 2..2000 points per side");
-        if (request.Eta is { } e && !(e > 0 && double.IsFinite(e))) throw new ArgumentException($"eta {e}: must be a positive number");
-        if (request.Window is { } w && !(w.High > w.Low)) throw new ArgumentException($"window {w.Low} {w.High}: the upper end must exceed the lower");
+        if (request.Energies is < 2 or > 5000) throw new RequestError($"--energies {request.Energies}: use 2..5000");
+        if (request.Grid is < 2 or > 2000) throw new RequestError($"--grid {request.Grid}: use 2..2000 points per side");
+        if (request.Eta is { } e && !(e > 0 && double.IsFinite(e))) throw new RequestError($"--eta {e}: must be a positive number");
+        if (request.Window is { } w && !(w.High > w.Low)) throw new RequestError($"--window {w.Low} {w.High}: the upper end must exceed the lower");
         var path = request.View == SurfaceView.Arcs ? null : cut.Zone.Path(request.Path).Sample(request.Points);
 
         double mu = solution.Mu;

@@ -97,7 +97,7 @@ public sealed class SurfaceZone
     /// A path of the surface zone: labels of <see cref="Points"/> or reduced coordinates "u1,u2" along b1, b2,
     /// optionally named ("A=0.25,0"); '-' or spaces join, '|' breaks.
     /// </summary>
-    /// <exception cref="ArgumentException">Unknown label (the valid ones are listed) or malformed coordinates.</exception>
+    /// <exception cref="RequestError">Unknown label (the valid ones are listed) or malformed coordinates.</exception>
     public BandPath Path(string? spec)
     {
         var text = string.IsNullOrWhiteSpace(spec) || spec == "auto" ? DefaultPath : spec;
@@ -121,14 +121,14 @@ public sealed class SurfaceZone
         {
             var c = HighSymmetryPoints.Canonical(token);
             if (Points.TryGetValue(c, out var k)) return new PathPoint(c, k);
-            throw new ArgumentException($"surface path point '{token}': the {Type.ToString().ToLowerInvariant()} surface zone has {string.Join(", ", Points.Keys)}");
+            throw new RequestError($"--path: surface path point '{token}': the {Type.ToString().ToLowerInvariant()} surface zone has {string.Join(", ", Points.Keys)}");
         }
         var parts = body.Split(',');
         if (parts.Length != 2
             || !double.TryParse(parts[0], NumberStyles.Float, CultureInfo.InvariantCulture, out var u1)
             || !double.TryParse(parts[1], NumberStyles.Float, CultureInfo.InvariantCulture, out var u2)
             || !double.IsFinite(u1) || !double.IsFinite(u2))
-            throw new ArgumentException($"surface path point '{token}': give two reduced coordinates u1,u2 along the surface reciprocal vectors");
+            throw new RequestError($"--path: surface path point '{token}': give two reduced coordinates u1,u2 along the surface reciprocal vectors");
         return new PathPoint(eq >= 0 ? token[..eq].Trim() : body, u1 * B1 + u2 * B2);
     }
 

@@ -1,7 +1,6 @@
 using Meanfield.Analysis.Surfaces;
 using Meanfield.Units;
 using ScottPlot;
-using SkiaSharp;
 
 namespace Meanfield.Output.Surfaces;
 
@@ -10,28 +9,21 @@ namespace Meanfield.Output.Surfaces;
 /// weights (red top face, blue bottom face, purple both, grey bulk); the surface and the bulk-projected spectral function side by
 /// side along a path (energy relative to mu) or on the surface zone at mu (Fermi-arc map, zone boundary drawn, projected
 /// bulk nodes marked with their net chirality). Spectral functions are drawn on a logarithmic scale over
-/// <see cref="Decades"/> decades below their maximum. PNG only for the side-by-side pictures.
+/// <see cref="Decades"/> decades below their maximum.
 /// </summary>
 public static class SurfacePlots
 {
     /// <summary>Decades of spectral weight shown below the maximum of each panel.</summary>
     public const double Decades = 3.5;
 
-    /// <summary>Draws the report's view into a PNG (or SVG for the slab view) at <paramref name="path"/>.</summary>
-    /// <exception cref="ArgumentException">An extension other than .png (or .svg for slab bands).</exception>
+    /// <summary>Draws the report's view into <paramref name="path"/>, as .png, .svg or .pdf by its extension.</summary>
+    /// <exception cref="OutputPathException">An extension other than .png, .svg or .pdf; nothing is written.</exception>
     public static void Save(SurfaceReport report, string path, string title)
     {
+        PlotStyle.CheckPictureName(path, "picture");
         if (report.Slab is not null) { PlotStyle.Save(SlabPlot(report, title), path); return; }
-        if (!path.EndsWith(".png", StringComparison.OrdinalIgnoreCase)) throw new ArgumentException($"picture '{path}': surface spectra are drawn as .png");
         var (left, right) = report.Spectrum is not null ? SpectrumPanels(report, title) : MapPanels(report, title);
-        int w = PlotStyle.Width, h = PlotStyle.Height;
-        using var surface = SKSurface.Create(new SKImageInfo(2 * w, h));
-        surface.Canvas.Clear(SKColors.White);
-        using (var a = SKBitmap.Decode(left.GetImageBytes(w, h, ImageFormat.Png))) surface.Canvas.DrawBitmap(a, 0, 0);
-        using (var b = SKBitmap.Decode(right.GetImageBytes(w, h, ImageFormat.Png))) surface.Canvas.DrawBitmap(b, w, 0);
-        using var image = surface.Snapshot();
-        using var data = image.Encode(SKEncodedImageFormat.Png, 100);
-        AtomicFile.Write(path, s => data.SaveTo(s));
+        PlotStyle.SavePanels([left, right], path);
     }
 
     private static Plot SlabPlot(SurfaceReport r, string title)
@@ -192,6 +184,7 @@ public static class SurfacePlots
         heat.Rectangle = rect;
         heat.ManualRange = new ScottPlot.Range(bottom, top);
         var bar = plot.Add.ColorBar(heat);
+        bar.Axis.TickGenerator = new ScottPlot.TickGenerators.NumericAutomatic { LabelFormatter = PlotStyle.Number };
         bar.Label = $"log10 {name.Split(' ')[^1]} (states per energy unit)";
         bar.LabelStyle.FontName = PlotStyle.FontName;
     }

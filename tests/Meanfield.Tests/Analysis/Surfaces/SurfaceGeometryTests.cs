@@ -62,14 +62,14 @@ public sealed class SurfaceGeometryTests
     public void Bad_planes_and_models_are_refused_with_a_message()
     {
         var cubic = Lattice.Create(LatticeKind.SimpleCubic, A);
-        Assert.Contains("do not define a lattice plane", Assert.Throws<ArgumentException>(() => LatticePlane.FromIndices(cubic, 0, 0, 0)).Message);
-        Assert.Contains("not an integer", Assert.Throws<ArgumentException>(() => LatticePlane.Parse("1,x,0", cubic)).Message);
-        Assert.Contains("three integers", Assert.Throws<ArgumentException>(() => LatticePlane.Parse("1,1", cubic)).Message);
-        Assert.Contains("3D model", Assert.Throws<ArgumentException>(() => LatticePlane.FromIndices(Lattice.Create(LatticeKind.Square, A), 0, 0, 1)).Message);
+        Assert.Contains("do not define a lattice plane", Assert.Throws<RequestError>(() => LatticePlane.FromIndices(cubic, 0, 0, 0)).Message);
+        Assert.Contains("not an integer", Assert.Throws<RequestError>(() => LatticePlane.Parse("1,x,0", cubic)).Message);
+        Assert.Contains("three integers", Assert.Throws<RequestError>(() => LatticePlane.Parse("1,1", cubic)).Message);
+        Assert.Contains("3D model", Assert.Throws<RequestError>(() => LatticePlane.FromIndices(Lattice.Create(LatticeKind.Square, A), 0, 0, 1)).Message);
         var model = SurfaceModels.FuKaneMele(1, 0.125, 0.4).Model;
         var plane = LatticePlane.FromIndices(model.Lattice, 1, 1, 1);
-        Assert.Contains("did you mean 'A'", Assert.Throws<ArgumentException>(() => new SurfaceCut(model, plane, "a1")).Message);
-        Assert.Contains("at least 2", Assert.Throws<ArgumentException>(() => new Slab(new SurfaceCut(model, plane, "A"), 1)).Message);
+        Assert.Contains("did you mean 'A'", Assert.Throws<RequestError>(() => new SurfaceCut(model, plane, "a1")).Message);
+        Assert.Contains("at least 2", Assert.Throws<RequestError>(() => new Slab(new SurfaceCut(model, plane, "A"), 1)).Message);
     }
 
     [Fact]

@@ -110,7 +110,7 @@ public sealed class ConeDipoleTests
     {
         var h = TiltedWeylPair(m: 2.5, gz: 0.15, gx: 0.15);
         var mesh = new ResponseMesh { Divisions = 12, RefinementLevels = 4, ThermalWidth = 0.001 };
-        var e = Assert.Throws<ArgumentOutOfRangeException>(() => CurvatureSamples.Compute(h, mesh, sampleLimit: 20000));
+        var e = Assert.Throws<RequestError>(() => CurvatureSamples.Compute(h, mesh, sampleLimit: 20000));
         Assert.Contains("fewer refinement levels", e.Message);
     }
 }
