@@ -40,7 +40,7 @@ public static class NodesCommand
     }
 
     internal static Option<int> SearchMesh(int fallback) =>
-        new("--search-mesh") { Description = $"Coarse k-mesh of the node search (Gamma-centred; default {fallback})", DefaultValueFactory = _ => fallback };
+        new("--search-mesh") { Description = $"Coarse k-mesh of the node search (Gamma-centred, default {fallback}; a solution whose own mesh is at least as fine seeds the search from its own mesh instead)", DefaultValueFactory = _ => fallback };
 
     internal static int CheckSearchMesh(int n) =>
         n is >= 4 and <= 96 ? n : throw new UserInputException($"--search-mesh {n}: use 4..96 divisions");

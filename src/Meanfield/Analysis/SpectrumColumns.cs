@@ -15,9 +15,9 @@ public sealed record SpectrumColumns
     public double? DirectGap { get; init; }
     /// <summary>min_k E_nocc - max_k E_nocc-1 (negative when the bands overlap).</summary>
     public double? IndirectGap { get; init; }
-    /// <summary>Total DOS at mu (tetrahedra).</summary>
+    /// <summary>Total DOS at mu (tetrahedra); for a decoupled solution the conduction part alone (the free f moments are a flat level at mu, a delta function).</summary>
     public double? DosFermiTotal { get; init; }
-    /// <summary>DOS at mu on the correlated orbitals.</summary>
+    /// <summary>DOS at mu on the correlated orbitals; null for a decoupled solution (free moments, no band).</summary>
     public double? DosFermiCorrelated { get; init; }
     /// <summary>Touchings of bands n_occ - 1 and n_occ.</summary>
     public int? NodeCount { get; init; }

@@ -5,6 +5,7 @@ using Meanfield.Analysis.Topology;
 using Meanfield.Heat;
 using Meanfield.Lattices;
 using Meanfield.Solutions;
+using Meanfield.Solver;
 using Meanfield.Units;
 
 namespace Meanfield.Analysis;
@@ -14,7 +15,7 @@ public sealed record SpectrumRequest
 {
     /// <summary>Coarse mesh of the node search (default <see cref="NodeSearchOptions.DefaultMesh"/>; 4 to 96).</summary>
     public int SearchMesh { get; init; } = NodeSearchOptions.DefaultMesh;
-    /// <summary>Compute the DOS at mu (tetrahedra on the solution mesh's divisions, Gamma-centred) and gamma (default true).</summary>
+    /// <summary>Compute the DOS at mu (tetrahedra on the solution's own mesh, shifted or not as it was solved) and gamma (default true).</summary>
     public bool Dos { get; init; } = true;
     /// <summary>Compute the node heat coefficient beta (default true).</summary>
     public bool Heat { get; init; } = true;
@@ -34,7 +35,7 @@ public sealed record SpectrumRequest
 /// <param name="Phase">The phase label (<see cref="PhaseClassifier"/>), null for momentum-free lattices.</param>
 /// <param name="Gaps">Gaps between bands n_occ - 1 and n_occ (null for a partly filled band or no k-space).</param>
 /// <param name="Nodes">The node search (null for a partly filled band or no k-space).</param>
-/// <param name="DosAtMu">DOS at mu when asked for.</param>
+/// <param name="DosAtMu">DOS at mu when asked for; for a decoupled solution the conduction part, with Correlated NaN (not a band: read <see cref="SpectrumColumns.DosFermiCorrelated"/>, which is null then).</param>
 /// <param name="Columns">The flat numbers for files.</param>
 /// <param name="Invariants">The invariants of a Kondo insulator's filled bands when asked for; null otherwise.</param>
 public sealed record SpectrumDigest(double Mu, PhaseLabel? Phase, GapReport? Gaps, NodeSearchResult? Nodes, DosValue? DosAtMu,
@@ -56,17 +57,18 @@ public static class SpectrumSummary
             var label = solution.Decoupled ? new PhaseLabel(Phase.Decoupled, "all boson amplitudes vanish (r = 0)") : null;
             return new(mu, label, null, null, null, new SpectrumColumns { Phase = label?.Name, PhaseReason = label?.Reason });
         }
-        // The operations of H(k), found once for both the DOS and the gap meshes.
-        var group = new Lazy<global::Meanfield.Symmetry.SymmetryGroup>(() => global::Meanfield.Symmetry.SymmetryGroup.Find(new Bloch.BlochHamiltonian(model)));
+        // One pass over the solution's own mesh serves the DOS at mu, the gaps and the node seeds: the solve's final
+        // pass when it was kept, otherwise a fresh one over the irreducible wedge (energies and kind weights are the
+        // same across an orbit; tetrahedra read every corner through the orbit map).
+        var pass = new Lazy<ZonePass>(() => solution.FinalPass ?? PassDos.Diagonalise(solution.Hamiltonian,
+            new global::Meanfield.Symmetry.IrreducibleMesh(solution.Mesh, global::Meanfield.Symmetry.SymmetryGroup.Find(new Bloch.BlochHamiltonian(model)))));
         DosValue? dos = null;
-        if (req.Dos || solution.Decoupled)
-        {
-            // Tetrahedra need every corner, but only the irreducible points are diagonalised (energies and kind
-            // weights are the same across an orbit).
-            var m = solution.Mesh;
-            var gamma = new KMesh(model.Lattice, m.N1, m.N2, m.N3, shifted: false);
-            dos = new TetrahedronDos(solution.Hamiltonian, gamma, SymmetryWedge.For(model, group.Value, gamma)).DosAtEnergy(mu);
-        }
+        // Decoupled f shells are a flat level pinned at mu: a delta function, not a band, so the DOS at mu is the
+        // conduction part alone and the correlated part is not reported (free moments carry entropy, not a gamma).
+        // Tetrahedra cannot take it from the solution's bands, where the flat level crosses the conduction band and
+        // band indices swap character inside a cell; the conduction bands alone are diagonalised instead.
+        if (solution.Decoupled) { var c = ConductionDosAt(model, solution.Mesh, mu); dos = new DosValue(c, double.NaN, c); }
+        else if (req.Dos) dos = PassDos.AtEnergy(pass.Value, mu);
         GapReport? gaps = null;
         NodeSearchResult? nodes = null;
         if (solution.WholeFilling && !solution.Decoupled)
@@ -74,14 +76,17 @@ public static class SpectrumSummary
             int occ = solution.OccupiedBands;
             var options = new NodeSearchOptions { Mesh = req.SearchMesh, Temperature = solution.Temperature };
             nodes = solution.PlacementNodes is { } p && p.ChemicalPotential == mu && req.SearchMesh == NodeSearchOptions.DefaultMesh && solution.Temperature == 0
-                ? p : NodeSearch.Find(solution.Hamiltonian, occ, mu, options);
-            gaps = Gaps(solution, occ, nodes, group.Value);
+                ? p : NodeSearch.Find(solution.Hamiltonian, occ, mu, options, pass.Value);
+            gaps = Gaps(pass.Value, occ, nodes);
         }
         var phase = PhaseClassifier.Classify(solution.Decoupled, solution.WholeFilling, gaps, nodes);
         InvariantReport? invariants = null;
         if (req.Topology && phase.Phase == Phase.KondoInsulator)
         {
-            invariants = InvariantReport.Compute(solution.Hamiltonian, solution.OccupiedBands, new Z2Options { GapMesh = req.SearchMesh, ParityAloneWhenInversion = true });
+            // The digest's own search is the gap check: a Kondo insulator label already says it found no touching.
+            var check = nodes is not null && gaps is not null ? GapCheckResult.From(nodes, gaps) : null;
+            invariants = InvariantReport.Compute(solution.Hamiltonian, solution.OccupiedBands,
+                new Z2Options { GapMesh = req.SearchMesh, ParityAloneWhenInversion = true, Gap = check });
             phase = PhaseClassifier.WithTopology(phase, invariants);
         }
         double? beta = null;
@@ -92,7 +97,7 @@ public static class SpectrumSummary
         {
             Phase = phase.Name, PhaseReason = phase.Reason,
             DirectGap = gaps?.Direct, IndirectGap = gaps?.Indirect,
-            DosFermiTotal = dos?.Total, DosFermiCorrelated = dos?.Correlated,
+            DosFermiTotal = dos?.Total, DosFermiCorrelated = dos is { } dv && double.IsFinite(dv.Correlated) ? dv.Correlated : null,
             NodeCount = nodes?.Nodes.Count, PinnedNodes = nodes?.Nodes.Count(n => n.Pinning == NodePinning.Pinned),
             MaxNodeOffset = nodes is null ? null : nodes.Nodes.Count == 0 ? 0 : nodes.Nodes.Max(n => Math.Abs(n.EnergyOffset)),
             NetChirality = nodes?.ChiralitySum, AbsChirality = nodes?.AbsChirality,
@@ -105,10 +110,26 @@ public static class SpectrumSummary
     }
 
     // Gaps on the solution's mesh, with the refined nodes included: a touching between mesh points closes the gap.
-    // Band extrema are the same across a symmetry orbit, so the irreducible points suffice.
-    private static GapReport Gaps(Solution solution, int occ, NodeSearchResult nodes, global::Meanfield.Symmetry.SymmetryGroup group)
+    /// <summary>
+    /// The conduction DOS at <paramref name="energy"/> of the r = 0 bands: every f level moved far above the spectrum
+    /// (the shells decouple exactly at r = 0), so band indices near the energy are conduction bands only.
+    /// </summary>
+    private static double ConductionDosAt(Binding.BoundModel model, Lattices.KMesh mesh, double energy)
     {
-        var g = GapFinder.Find(MeshSpectrum.Compute(solution.Hamiltonian, SymmetryWedge.For(solution.Model, group, solution.Mesh!), withProjections: false), occ);
+        var bare = new Bloch.BlochHamiltonian(model);
+        int groups = model.ShellGroups().Count;
+        double far = DecoupledLevelShift * (1 + model.Shells.Max(s => Math.Abs(s.Level)) + Math.Abs(energy));
+        var h = new Renormalization.RenormalizedHamiltonian(bare, new Renormalization.MeanFieldAmplitudes(new double[groups], Enumerable.Repeat(far, groups).ToArray()));
+        var wedge = new global::Meanfield.Symmetry.IrreducibleMesh(mesh, global::Meanfield.Symmetry.SymmetryGroup.Find(bare));
+        return PassDos.AtEnergy(PassDos.Diagonalise(h, wedge), energy).Conduction;
+    }
+
+    /// <summary>How far above the spectrum (relative to its largest level) the decoupled f levels are moved for <see cref="ConductionDosAt"/>.</summary>
+    private const double DecoupledLevelShift = 1e6;
+
+    private static GapReport Gaps(ZonePass pass, int occ, NodeSearchResult nodes)
+    {
+        var g = GapFinder.Find(pass, occ);
         if (nodes.Nodes.Count == 0) return g;
         var lowest = nodes.Nodes.MinBy(n => n.Gap)!;
         double hi = nodes.Nodes.Max(n => n.Energy), lo = nodes.Nodes.Min(n => n.Energy);

@@ -5,9 +5,12 @@ namespace Meanfield.Benchmarks;
 
 /// <summary>What a benchmark scan cost.</summary>
 /// <param name="Points">Grid points solved.</param>
+/// <param name="Mesh">k-mesh divisions of every solve.</param>
 /// <param name="WallSeconds">Wall time of the whole scan (s).</param>
 /// <param name="DiagonalisationFraction">Estimated share of the available CPU time (wall x cores) spent diagonalising
 /// inside the saddle-point solves.</param>
+/// <param name="DigestSeconds">Wall seconds of the spectrum digests (phase, nodes, gaps, DOS, invariants) summed over
+/// the points (points run in parallel, so this can exceed the scan's wall time).</param>
 /// <param name="MeanIterationsWarm">Mean iterations of the warm-started points of the scan.</param>
 /// <param name="WarmShare">Share of points that were warm-started.</param>
 /// <param name="ColdSubset">Points re-solved from a cold start for comparison.</param>
@@ -16,16 +19,48 @@ namespace Meanfield.Benchmarks;
 /// <param name="ColdSubsetSeconds">Wall time of the cold subset (s).</param>
 /// <param name="NonConverged">Scan points that did not converge.</param>
 /// <param name="ZonePasses">Zone passes over the scan.</param>
-public sealed record ScanBenchmarkResult(int Points, double WallSeconds, double DiagonalisationFraction, double MeanIterationsWarm,
-                                         double WarmShare, int ColdSubset, double MeanIterationsColdSubset,
-                                         double MeanIterationsWarmSubset, double ColdSubsetSeconds, int NonConverged, long ZonePasses);
+/// <param name="Phases">Points per phase label.</param>
+public sealed record ScanBenchmarkResult(int Points, int Mesh, double WallSeconds, double DiagonalisationFraction, double DigestSeconds,
+                                         double MeanIterationsWarm, double WarmShare, int ColdSubset, double MeanIterationsColdSubset,
+                                         double MeanIterationsWarmSubset, double ColdSubsetSeconds, int NonConverged, long ZonePasses,
+                                         IReadOnlyDictionary<string, int> Phases)
+{
+    /// <summary>Wall time per point (s).</summary>
+    public double SecondsPerPoint => WallSeconds / Math.Max(1, Points);
+    /// <summary>The wall time a grid of <paramref name="points"/> would take at this rate (s): points cost alike on average.</summary>
+    public double Extrapolated(int points) => SecondsPerPoint * points;
+}
 
 /// <summary>Runs a scan grid with the real solver, then re-solves a spread subset cold (library side of `meanfield bench --scan`).</summary>
 public static class ScanBenchmark
 {
-    public static async Task<ScanBenchmarkResult> RunAsync(ScanDefinition scan, ScanGrid grid, int coldSubset,
-                                                           IProgress<ScanProgress>? progress, CancellationToken ct)
+    /// <summary>The shipped scan the benchmark runs by default (relative to the repository root).</summary>
+    public const string DefaultScanFile = "scans/weyl-diamond-v-ratio.toml";
+
+    /// <summary>
+    /// The scan file <paramref name="path"/> resampled to <paramref name="points"/> values per axis over the same range
+    /// (same spacing), solved on a <paramref name="mesh"/> mesh with the node and DOS columns on.
+    /// </summary>
+    /// <exception cref="RequestError">Fewer than 2 points or a mesh below 2.</exception>
+    /// <exception cref="ScanFileError">The scan file does not read.</exception>
+    public static ScanDefinition Resampled(string path, int points, int mesh)
     {
+        if (points < 2) throw new RequestError($"--scan-size {points}: need at least 2 points per axis");
+        if (mesh < 2) throw new RequestError($"--scan-mesh {mesh}: need at least 2 divisions");
+        var scan = ScanFileReader.Load(path);
+        var axes = scan.Axes.Select(a => a with
+        {
+            Values = a.Spacing == AxisSpacing.Log ? ScanAxis.Logarithmic(a.Values[0], a.Values[^1], points) : ScanAxis.Linear(a.Values[0], a.Values[^1], points),
+            Spacing = a.Spacing == AxisSpacing.Log ? AxisSpacing.Log : AxisSpacing.Linear,
+        }).ToList();
+        return scan with { Axes = axes, Solver = scan.Solver with { Mesh = mesh }, Columns = scan.Columns with { Nodes = true, Dos = true } };
+    }
+
+    /// <summary>Runs <paramref name="scan"/> (every grid point), then re-solves <paramref name="coldSubset"/> spread points cold.</summary>
+    /// <exception cref="OperationCanceledException">Cancelled.</exception>
+    public static async Task<ScanBenchmarkResult> RunAsync(ScanDefinition scan, int coldSubset, IProgress<ScanProgress>? progress, CancellationToken ct)
+    {
+        var grid = scan.ToGrid();
         var solver = SaddlePointPointSolver.For(scan);
         string dir = Directory.CreateTempSubdirectory("mf-bench-").FullName;
         try
@@ -39,18 +74,17 @@ public static class ScanBenchmark
 
             int take = Math.Clamp(coldSubset, 1, rows.Count);
             var subset = Enumerable.Range(0, take).Select(i => rows[(int)((long)i * rows.Count / take)]).ToList();
-            var cold = new SaddlePointPointSolver(ModelOf(scan), scan.Solver, scan.Columns) { ColdOnly = true };
+            var cold = new SaddlePointPointSolver(Models.ModelFile.Parse(scan.ModelText, scan.ModelPath), scan.Solver, scan.Columns) { ColdOnly = true };
             clock.Restart();
             var coldIterations = subset.Select(r => cold.Solve(grid.Point(r.PointId), null, ct).Iterations).ToList();
             double coldSeconds = clock.Elapsed.TotalSeconds;
+            var phases = rows.GroupBy(r => r.Result.Spectrum.Phase ?? "(none)").OrderByDescending(g => g.Count()).ToDictionary(g => g.Key, g => g.Count());
 
-            return new ScanBenchmarkResult(rows.Count, wall, solver.DiagonalisationSeconds / (wall * Environment.ProcessorCount),
-                warmRows.Count == 0 ? double.NaN : warmRows.Average(r => r.Result.Iterations), warmRows.Count / (double)rows.Count,
+            return new ScanBenchmarkResult(rows.Count, scan.Solver.Mesh, wall, solver.DiagonalisationSeconds / (wall * Environment.ProcessorCount),
+                solver.DigestSeconds, warmRows.Count == 0 ? 0 : warmRows.Average(r => r.Result.Iterations), warmRows.Count / (double)rows.Count,
                 take, coldIterations.Average(), subset.Average(r => r.Result.Iterations), coldSeconds,
-                rows.Count(r => !r.Result.Converged), solver.ZonePasses);
+                rows.Count(r => !r.Result.Converged), solver.ZonePasses, phases);
         }
         finally { Directory.Delete(dir, recursive: true); }
     }
-
-    private static Models.ModelSpec ModelOf(ScanDefinition scan) => Models.ModelFile.Parse(scan.ModelText, scan.ModelPath);
 }

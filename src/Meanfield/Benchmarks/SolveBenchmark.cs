@@ -29,10 +29,14 @@ namespace Meanfield.Benchmarks;
 /// <param name="BytesPerPass">Bytes allocated by one solver pass, all threads (GC.GetTotalAllocatedBytes).</param>
 /// <param name="PeakWorkingSetBytes">Peak working set of the process so far.</param>
 /// <param name="Converged">Whether the solve converged.</param>
+/// <param name="DigestSeconds">Wall time of what `solve` does after the saddle point: the solution handle and its
+/// spectrum digest (phase, gaps, nodes, DOS at mu, invariants), from the solve's final pass (s); 0 when not converged.</param>
+/// <param name="Phase">The digest's phase label (null when not converged).</param>
 public sealed record SolveBenchmarkResult(int Mesh, int KPoints, int Bands, double SolveSeconds, double SolveCpuSeconds, int Iterations, int ZonePasses,
                                           int CoarsePasses, double MicrosecondsPerKPointPass, double BarePassSeconds,
                                           double BareWedgeSeconds, double PassSeconds, double JacobianSeconds, int WedgePoints,
-                                          int SymmetryOrder, long BytesPerPass, long PeakWorkingSetBytes, bool Converged)
+                                          int SymmetryOrder, long BytesPerPass, long PeakWorkingSetBytes, bool Converged,
+                                          double DigestSeconds = 0, string? Phase = null)
 {
     /// <summary>Full-mesh points per wedge point.</summary>
     public double ReductionFactor => KPoints / (double)WedgePoints;
@@ -48,12 +52,18 @@ public sealed record FiniteUComparison(int Mesh, double U, double FiniteSeconds,
     public double Ratio => FiniteSeconds / InfiniteSeconds;
     /// <summary>Finite-U over infinite-U processor time (less sensitive to other load on the machine).</summary>
     public double CpuRatio => FiniteCpuSeconds / InfiniteCpuSeconds;
+
+    /// <summary>One line of the benchmark report: both solves and the two ratios.</summary>
+    /// <param name="unit">The model's energy unit symbol, for U.</param>
+    public string Describe(string unit) => string.Create(System.Globalization.CultureInfo.InvariantCulture,
+        $"{Mesh,5}  U = {U:G6} {unit}: finite {FiniteSeconds:F3} s ({FiniteCpuSeconds:F2} cpu s, {FiniteIterations} iter, {FinitePasses} passes{(FiniteConverged ? "" : ", NOT converged")}), " +
+        $"infinite {InfiniteSeconds:F3} s ({InfiniteCpuSeconds:F2} cpu s, {InfiniteIterations} iter, {InfinitePasses} passes{(InfiniteConverged ? "" : ", NOT converged")}); ratio {Ratio:F2} wall, {CpuRatio:F2} cpu");
 }
 
 /// <summary>Measures full solves and single passes of a bound model (library side of `meanfield bench`).</summary>
 public static class SolveBenchmark
 {
-    /// <summary>Times a full solve of <paramref name="model"/> and single passes over its mesh.</summary>
+    /// <summary>Times a full solve of <paramref name="model"/>, its digest as `solve` makes it, and single passes over its mesh.</summary>
     /// <exception cref="RequestError">A model without momentum, or one the solver refuses.</exception>
     public static SolveBenchmarkResult Run(BoundModel model, SolverSettings settings, CancellationToken ct = default)
     {
@@ -66,6 +76,15 @@ public static class SolveBenchmark
         double solveSeconds = clock.Elapsed.TotalSeconds;
         self.Refresh();
         double cpu = (self.TotalProcessorTime - cpu0).TotalSeconds;
+
+        double digest = 0; string? phase = null;
+        if (sp.Converged)
+        {
+            clock.Restart();
+            var solution = Solutions.Solution.FromSaddlePoint(model, sp, settings);
+            phase = Analysis.SpectrumSummary.Compute(solution).Phase?.Name;
+            digest = clock.Elapsed.TotalSeconds;
+        }
 
         // One more pass at the solution: warm caches, then measure time and allocation of the best of three.
         sum.Fill(sp.Amplitudes);
@@ -90,7 +109,7 @@ public static class SolveBenchmark
         self.Refresh();
         return new SolveBenchmarkResult(settings.Mesh, sum.Mesh.Count, solver.Bare.Size, solveSeconds, cpu, sp.Iterations, sp.ZonePasses,
             solver.CoarsePasses, 1e6 * solveSeconds / Math.Max(1, sp.ZonePasses) / sum.Irreducible.Count, bare, bareWedge, pass,
-            jacobian, sum.Irreducible.Count, sum.Irreducible.Group.Order, bytes, self.PeakWorkingSet64, sp.Converged);
+            jacobian, sum.Irreducible.Count, sum.Irreducible.Group.Order, bytes, self.PeakWorkingSet64, sp.Converged, digest, phase);
     }
 
     /// <summary>
@@ -105,7 +124,7 @@ public static class SolveBenchmark
         foreach (var s in model.Shells) scale = Math.Max(scale, Math.Abs(s.Level));
         foreach (var h in model.Hoppings) scale = Math.Max(scale, h.Amplitude.MaxAbs());
         double repulsion = u ?? model.Shells.FirstOrDefault(s => s.HasFiniteU)?.U ?? 4 * scale;
-        if (!(repulsion >= 0) || double.IsInfinity(repulsion)) throw new ArgumentException($"U = {repulsion} must be finite and >= 0");
+        if (!(repulsion >= 0) || double.IsInfinity(repulsion)) throw new RequestError($"--finite-u {repulsion}: U must be finite and >= 0");
         var finite = model.With(shells: [.. model.Shells.Select(s => s with { U = repulsion })]);
         var infinite = model.With(shells: [.. model.Shells.Select(s => s with { U = double.PositiveInfinity })]);
         var (fs, fcpu, fsp) = Timed(finite, settings, ct);

@@ -16,7 +16,7 @@ public sealed class SaddlePointPointSolver
 {
     private readonly ModelSpec _spec;
     private ScanDefinition? _scan;
-    private long _passes, _diagonalisationTicks, _solves, _iterations;
+    private long _passes, _diagonalisationTicks, _solves, _iterations, _digestTicks;
 
     /// <summary>
     /// A solve that stops short of convergence with every r below this was collapsing onto the decoupled solution
@@ -94,6 +94,8 @@ public sealed class SaddlePointPointSolver
     /// measured diagonalisation time of each solve's last pass (all passes diagonalise the same mesh).
     /// </summary>
     public double DiagonalisationSeconds => Interlocked.Read(ref _diagonalisationTicks) / (double)TimeSpan.TicksPerSecond;
+    /// <summary>Wall seconds spent in the spectrum digests (phase, nodes, gaps, DOS, invariants), summed over the points.</summary>
+    public double DigestSeconds => Interlocked.Read(ref _digestTicks) / (double)System.Diagnostics.Stopwatch.Frequency;
 
     public ScanPointResult Solve(ScanPoint point, ScanPointResult? warmStart, CancellationToken ct)
     {
@@ -115,7 +117,9 @@ public sealed class SaddlePointPointSolver
         // The same handle and digest `solve` and `nodes` use; the row's mu is the solution's (placed at a node energy at T = 0).
         var solution = sp.Converged ? Solutions.Solution.FromSaddlePoint(model, sp, settings) : null;
         var request = new Analysis.SpectrumRequest { Dos = Columns.Dos || Columns.Heat, Heat = Columns.Heat };
+        long digestStart = System.Diagnostics.Stopwatch.GetTimestamp();
         var spectrum = solution is null ? new Analysis.SpectrumColumns() : Analysis.SpectrumSummary.Compute(solution, request).Columns;
+        Interlocked.Add(ref _digestTicks, System.Diagnostics.Stopwatch.GetTimestamp() - digestStart);
         return new ScanPointResult
         {
             Converged = sp.Converged, Iterations = sp.Iterations, ResidualNorm = sp.ResidualNorm, Mu = solution?.Mu ?? sp.Mu,

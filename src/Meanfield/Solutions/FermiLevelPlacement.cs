@@ -37,16 +37,21 @@ public static class FermiLevelPlacement
     /// Places mu for <paramref name="occupied"/> filled bands of <paramref name="source"/> given the window
     /// [<paramref name="lower"/>, <paramref name="upper"/>] of no states on the sampling mesh (lower &lt; upper).
     /// </summary>
-    public static Placement InWindow(IBlochSource source, int occupied, double lower, double upper)
+    /// <param name="source">The Bloch Hamiltonian.</param>
+    /// <param name="occupied">Filled bands.</param>
+    /// <param name="lower">Highest occupied energy on the mesh.</param>
+    /// <param name="upper">Lowest empty energy on the mesh.</param>
+    /// <param name="pass">A pass of <paramref name="source"/> (the solve's last) whose gaps seed the node search, or null.</param>
+    public static Placement InWindow(IBlochSource source, int occupied, double lower, double upper, ZonePass? pass = null)
     {
         double middle = 0.5 * (lower + upper);
-        var nodes = NodeSearch.Find(source, occupied, middle);
+        var nodes = NodeSearch.Find(source, occupied, middle, null, pass);
         var t = nodes.Tolerances;
         if (nodes.Nodes.Count > 0 && !nodes.FermiSurfaceAwayFromNodes && nodes.NodeEnergySpread <= t.Degeneracy)
         {
             double e = nodes.Nodes.Average(n => n.Energy);
             if (e >= lower - t.Pinning && e <= upper + t.Pinning)
-                return new(e, ChemicalPotentialRule.NodeEnergy, NodeSearch.Find(source, occupied, e));
+                return new(e, ChemicalPotentialRule.NodeEnergy, nodes.At(e));
         }
         return new(middle, ChemicalPotentialRule.MiddleOfGap, nodes);
     }

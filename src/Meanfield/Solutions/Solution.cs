@@ -51,6 +51,22 @@ public sealed class Solution
     public string? SourcePath { get; }
     /// <summary>The node search that placed mu (T = 0 between bands), reused by the spectrum digest; null otherwise.</summary>
     internal NodeSearchResult? PlacementNodes { get; }
+    /// <summary>
+    /// The solve's final pass over <see cref="Mesh"/> at this solution's amplitudes, when it was kept and its f weights
+    /// cover exactly the correlated orbitals: the digest reads gaps, the DOS at mu and node seeds from it. Null otherwise.
+    /// </summary>
+    internal ZonePass? FinalPass => SaddlePoint?.FinalPass is { } p && Mesh is { } m && p.Wedge.Mesh.N1 == m.N1 && p.Wedge.Mesh.N2 == m.N2
+                                    && p.Wedge.Mesh.N3 == m.N3 && p.Wedge.Mesh.Shifted == m.Shifted && Amplitudes is { } a && p.MadeAt(a)
+                                    && FWeightsAreCorrelated(Model) ? p : null;
+
+    private static bool FWeightsAreCorrelated(BoundModel model)
+    {
+        var withShell = model.Shells.Select(s => s.Orbital).ToHashSet();
+        for (int o = 0; o < model.Orbitals.Count; o++)
+            if ((model.Orbitals[o].Kind == OrbitalKind.Correlated) != withShell.Contains(o)) return false;
+        return true;
+    }
+
     /// <summary>What an exported model's file says about itself, for <see cref="SolutionOrigin.ExportedModel"/>; otherwise null.</summary>
     public OneBodyHeader? ExportHeader { get; private init; }
 
@@ -95,7 +111,7 @@ public sealed class Solution
         bool decoupled = saddlePoint.Branch == SaddlePointBranch.Decoupled;
         var placement = Place(ham, model, mesh, saddlePoint.Mu, saddlePoint.Temperature,
                               saddlePoint.Temperature > 0 ? ChemicalPotentialRule.FermiDirac : ChemicalPotentialRule.GroundStateInBand, decoupled,
-                              saddlePoint.FermiWindow);
+                              saddlePoint.FermiWindow, saddlePoint.FinalPass);
         return new Solution(model, ham, saddlePoint.Amplitudes, saddlePoint, mesh, placement, saddlePoint.Temperature,
                             decoupled, SolutionOrigin.Solved, null);
     }
@@ -155,13 +171,13 @@ public sealed class Solution
     }
 
     private static FermiLevelPlacement.Placement Place(IBlochSource ham, BoundModel model, KMesh? mesh, double mu, double temperature,
-                                                       ChemicalPotentialRule rule, bool decoupled, FermiWindow? window)
+                                                       ChemicalPotentialRule rule, bool decoupled, FermiWindow? window, ZonePass? pass = null)
     {
         double ne = model.ElectronsPerCell;
         int occ = (int)Math.Round(ne);
         bool whole = ne >= 1 && ne < ham.Size && Math.Abs(ne - occ) <= WholeFillingTolerance;
         if (temperature > 0 || mesh is null || decoupled || !whole) return new(mu, rule, null);
         // The window of no states: from the solver's tetrahedron filling, or from the bare model's mesh.
-        return window is { Width: > 0 } w ? FermiLevelPlacement.InWindow(ham, occ, w.Lower, w.Upper) : new(mu, rule, null);
+        return window is { Width: > 0 } w ? FermiLevelPlacement.InWindow(ham, occ, w.Lower, w.Upper, pass) : new(mu, rule, null);
     }
 }

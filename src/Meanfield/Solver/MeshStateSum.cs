@@ -85,6 +85,7 @@ public sealed class MeshStateSum : IStateSum, ISaddlePointDerivatives
     {
         var ham = new RenormalizedHamiltonian(_bare, amplitudes);
         _vectorsOf = _vectors is null ? null : ham;
+        _filledAt = amplitudes;
         Run((w, lo, hi) => { for (int p = lo; p < hi; p++) FillPoint(ham, p, w); });
         return _table;
     }
@@ -97,6 +98,7 @@ public sealed class MeshStateSum : IStateSum, ISaddlePointDerivatives
     {
         var ham = new RenormalizedHamiltonian(_bare, amplitudes);
         _vectorsOf = null;
+        _filledAt = null;
         int n = _bare.Size;
         Array.Clear(_table.FWeight); Array.Clear(_table.EnergySlope);
         Run((w, lo, hi) =>
@@ -111,6 +113,24 @@ public sealed class MeshStateSum : IStateSum, ISaddlePointDerivatives
             }
         });
         return _table;
+    }
+
+    private MeanFieldAmplitudes? _filledAt;
+
+    /// <summary>
+    /// A copy of the last <see cref="Fill"/>'s energies and correlated weights when it was made at exactly
+    /// <paramref name="amplitudes"/> (null otherwise, or after <see cref="FillEnergies"/>): the final pass of a solve,
+    /// for the spectrum digest.
+    /// </summary>
+    public ZonePass? LastPass(MeanFieldAmplitudes amplitudes)
+    {
+        if (_filledAt is null) return null;
+        var pass = new ZonePass(Irreducible, _bare.Size, (double[])_table.Energy.Clone(), new double[_table.Count], _filledAt);
+        if (!pass.MadeAt(amplitudes)) return null;
+        int groups = _table.Groups;
+        for (int state = 0; state < _table.Count; state++)
+            for (int g = 0; g < groups; g++) pass.Correlated[state] += _table.FWeight[state * groups + g];
+        return pass;
     }
 
     private void Run(Action<Workspace, int, int> body)

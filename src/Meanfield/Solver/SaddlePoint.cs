@@ -40,4 +40,6 @@ public sealed record SaddlePoint
     public int ZonePasses { get; init; }
     /// <summary>The symmetry that reduced the zone sums, or null for momentum-free lattices.</summary>
     public MeshReduction? Symmetry { get; init; }
+    /// <summary>The solve's last pass over the k-mesh when it was made at <see cref="Amplitudes"/> (null otherwise).</summary>
+    public ZonePass? FinalPass { get; init; }
 }

@@ -290,8 +290,13 @@ public sealed partial class SaddlePointSolver
             // A start that flows to r = 0 speaks for all: smaller starting amplitudes only flow there faster.
             if (attempt.Converged || attempt.Collapsed) break;
         }
+        // Kept before Finish, whose decoupled branch refills the sum with energies only.
+        // (The attempt's vector is (r, lambda) at infinite U and the boson vector at finite U.)
+        var lastAmplitudes = _u is null ? MeanFieldAmplitudes.Unpack(best!.X) : FiniteAmplitudes(ToIterationVector(best!.X));
+        var last = lastAmplitudes is null ? null : (_sum as MeshStateSum)?.LastPass(lastAmplitudes);
         var result = Finish(best!);
-        return result with { WallSeconds = clock.Elapsed.TotalSeconds, ZonePasses = _passes, Symmetry = _reduction };
+        return result with { WallSeconds = clock.Elapsed.TotalSeconds, ZonePasses = _passes, Symmetry = _reduction,
+                             FinalPass = last is not null && last.MadeAt(result.Amplitudes) ? last : null };
     }
 
     private sealed record Attempt(double[] X, double[] Res, BandFilling Filling, int Iterations, bool Converged, bool Collapsed, bool Stalled)

@@ -87,6 +87,18 @@ public sealed class IrreducibleMesh
         return (Array.BinarySearch(_representatives, best), op!);
     }
 
+    /// <summary>
+    /// The wedge point of every full-mesh point, as one array (4 bytes per full point): for loops over the whole mesh
+    /// that look points up many times, where <see cref="Locate"/> per point would cost a search each time.
+    /// </summary>
+    public int[] WedgeOfEveryPoint()
+    {
+        var row = new int[Mesh.Count];
+        for (int w = 0; w < _representatives.Length; w++)
+            foreach (var a in _actions) row[Apply(a, _representatives[w])] = w;
+        return row;
+    }
+
     /// <summary>Image of a full-mesh index under action <paramref name="a"/>.</summary>
     [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)] // hot loop: skip tier-0 code
     private int Apply(MeshAction a, int index)

@@ -1,6 +1,8 @@
 using Meanfield.Analysis.Dos;
 using Meanfield.Bloch;
 using Meanfield.Lattices;
+using Meanfield.Solver;
+using Meanfield.Symmetry;
 
 namespace Meanfield.Analysis.Nodes;
 
@@ -11,6 +13,10 @@ namespace Meanfield.Analysis.Nodes;
 /// completion of every node's orbit under the lattice's point operations (an image is kept only where the bands
 /// really touch), then per node the cone fit, the degeneracy, the chirality from a converged flux and the location.
 /// Every tolerance is relative to the width of the two bands and to |b|_min (<see cref="SpectrumTolerances"/>).
+/// Given a pass of the same Hamiltonian over a mesh at least as fine as the coarse one (a solve's final pass, see
+/// <see cref="ZonePass"/>), its eigenvalues are the coarse scan and its symmetry group is used: one minimum per orbit is
+/// refined, orbits are completed with the group's operations only, and the chirality is computed once per orbit and
+/// carried to the images by the operation's parity.
 /// </summary>
 public static class NodeSearch
 {
@@ -27,7 +33,17 @@ public static class NodeSearch
     /// </summary>
     /// <exception cref="ArgumentException">A lattice without momentum.</exception>
     /// <exception cref="ArgumentOutOfRangeException"><paramref name="occupied"/> outside 1..Size-1.</exception>
-    public static NodeSearchResult Find(IBlochSource source, int occupied, double chemicalPotential, NodeSearchOptions? options = null)
+    public static NodeSearchResult Find(IBlochSource source, int occupied, double chemicalPotential, NodeSearchOptions? options = null) =>
+        Find(source, occupied, chemicalPotential, options, null);
+
+    /// <summary>
+    /// As <see cref="Find(IBlochSource, int, double, NodeSearchOptions?)"/>, seeded from <paramref name="pass"/> (a pass of
+    /// <paramref name="source"/> itself, such as a solve's final one) instead of a fresh coarse mesh when its mesh has at
+    /// least <see cref="NodeSearchOptions.Mesh"/> divisions along every axis: its gaps are the coarse scan, on that finer mesh.
+    /// </summary>
+    /// <exception cref="ArgumentException">A lattice without momentum.</exception>
+    /// <exception cref="ArgumentOutOfRangeException"><paramref name="occupied"/> outside 1..Size-1.</exception>
+    public static NodeSearchResult Find(IBlochSource source, int occupied, double chemicalPotential, NodeSearchOptions? options, ZonePass? pass)
     {
         var opt = options ?? new NodeSearchOptions();
         var lattice = source.Model.Lattice;
@@ -36,19 +52,25 @@ public static class NodeSearch
         if (occupied < 1 || occupied >= source.Size)
             throw new ArgumentOutOfRangeException(nameof(occupied), $"occupied band count {occupied} must lie in 1..{source.Size - 1}");
         if (opt.Mesh < 4) throw new ArgumentOutOfRangeException(nameof(options), $"the coarse mesh needs at least 4 divisions, got {opt.Mesh}");
-        var mesh = new KMesh(lattice, opt.Mesh);
-        var sp = MeshSpectrum.Compute(source, mesh, withProjections: false);
-
+        if (pass is not null && !FineEnough(pass.Wedge.Mesh, opt.Mesh, dim)) pass = null;
+        var (mesh, energies, rowOf) = pass is not null
+            ? (pass.Wedge.Mesh, pass.Energies, pass.RowOfPoint)
+            : CoarsePass(source, new KMesh(lattice, opt.Mesh));
+        int bands = source.Size, rows = energies.Length / bands;
         double valMax = double.NegativeInfinity, condMin = double.PositiveInfinity, pairLow = double.PositiveInfinity,
                pairHigh = double.NegativeInfinity, largest = 0;
+        for (int w = 0; w < rows; w++)
+        {
+            double v = energies[w * bands + occupied - 1], c = energies[w * bands + occupied];
+            valMax = Math.Max(valMax, v); condMin = Math.Min(condMin, c);
+            pairLow = Math.Min(pairLow, v); pairHigh = Math.Max(pairHigh, c);
+            largest = Math.Max(largest, Math.Max(Math.Abs(energies[w * bands]), Math.Abs(energies[w * bands + bands - 1])));
+        }
         var gap = new double[mesh.Count];
         for (int k = 0; k < mesh.Count; k++)
         {
-            double v = sp.Energy(k, occupied - 1), c = sp.Energy(k, occupied);
-            gap[k] = c - v;
-            valMax = Math.Max(valMax, v); condMin = Math.Min(condMin, c);
-            pairLow = Math.Min(pairLow, v); pairHigh = Math.Max(pairHigh, c);
-            largest = Math.Max(largest, Math.Max(Math.Abs(sp.Energy(k, 0)), Math.Abs(sp.Energy(k, source.Size - 1))));
+            int w = rowOf is null ? k : rowOf[k];
+            gap[k] = energies[w * bands + occupied] - energies[w * bands + occupied - 1];
         }
         var tol = SpectrumTolerances.For(pairLow, pairHigh, largest, source.Size, lattice, opt.Temperature);
 
@@ -64,6 +86,10 @@ public static class NodeSearch
                                         mesh.ToString(), tol, dim);
         }
         var candidates = LocalMinima(mesh, gap, dim);
+        // Minima in one orbit of the pass's symmetry are images of each other: the lowest is refined, and the orbit
+        // completion below adds the images of the node it finds.
+        if (rowOf is not null && opt.CompleteOrbits) candidates = OnePerOrbit(candidates, rowOf);
+
         if (candidates.Count > opt.MaxCandidates)
         {
             warnings.Add($"{candidates.Count} local gap minima on the coarse mesh; refined only the {opt.MaxCandidates} lowest.");
@@ -84,9 +110,9 @@ public static class NodeSearch
             if (p.Converged) AddDistinct(found, lattice, p.K, tol.Merge);
             else if (p.Gap < tol.Gap) unresolved++;
         }
-        if (opt.CompleteOrbits) CompleteOrbits(source, lattice, found, occupied - 1, tol, 4 * opt.NodalLineCount);
+        if (opt.CompleteOrbits) CompleteOrbits(source, lattice, found, occupied - 1, tol, 4 * opt.NodalLineCount, pass?.Wedge.Group);
 
-        var nodes = Characterise(source, found, occupied, chemicalPotential, tol);
+        var nodes = Characterise(source, found, occupied, chemicalPotential, tol, pass?.Wedge.Group);
         bool resolved = dim != 3 || nodes.All(n => n.Chirality is not null);
         int? sum = dim == 3 && resolved ? nodes.Sum(n => n.Chirality!.Value) : null;
 
@@ -120,6 +146,21 @@ public static class NodeSearch
                                     chemicalPotential, mesh.ToString(), tol, dim);
     }
 
+    // The coarse scan on a fresh Gamma-centred mesh: energies of every point, in mesh order.
+    private static (KMesh Mesh, double[] Energies, int[]? RowOf) CoarsePass(IBlochSource source, KMesh mesh) =>
+        (mesh, MeshSpectrum.Compute(source, mesh, withProjections: false).Energies, null);
+
+    private static List<int> OnePerOrbit(List<int> candidates, int[] rowOf)
+    {
+        var seen = new HashSet<int>();
+        var kept = new List<int>(candidates.Count);
+        foreach (int k in candidates) if (seen.Add(rowOf[k])) kept.Add(k);
+        return kept;
+    }
+
+    private static bool FineEnough(KMesh mesh, int divisions, int dim) =>
+        mesh.N1 >= divisions && mesh.N2 >= divisions && (dim < 3 || mesh.N3 >= divisions);
+
     // Gauss-Newton from a coarse minimum; when it cannot start, a Nelder-Mead pre-search brings it closer first.
     private static RefinedPoint RefineFrom(NodeRefiner refiner, Lattice lattice, Vec3 k0, int lower, SpectrumTolerances tol, int mesh)
     {
@@ -129,7 +170,9 @@ public static class NodeSearch
         var u0 = lattice.Reduced(p.K);
         double F(double[] u) => refiner.Gap(lattice.Cartesian(u[0], u[1], dim == 3 ? u[2] : 0), lower);
         double[] x0 = dim == 3 ? [u0.X, u0.Y, u0.Z] : [u0.X, u0.Y];
-        var best = NelderMead.Minimise(F, x0, 0.5 / mesh, PreSearchFraction * tol.PairWidth, 0, 2000);
+        // A simplex shrunk below the merge distance (in reduced coordinates) without reaching the target sits on a minimum
+        // with a finite gap: nothing closer than that distance could be told apart from it anyway.
+        var best = NelderMead.Minimise(F, x0, 0.5 / mesh, PreSearchFraction * tol.PairWidth, SpectrumTolerances.MergeFraction, 2000);
         var k1 = lattice.Cartesian(best.X[0], best.X[1], dim == 3 ? best.X[2] : 0);
         var q = refiner.Refine(k1, lower, tol.NodeGap, tol.Degeneracy);
         return q.Gap < p.Gap ? q : p;
@@ -142,20 +185,59 @@ public static class NodeSearch
         return true;
     }
 
-    // Images of every node under the lattice's point operations, refined and kept where the bands touch there.
-    private static void CompleteOrbits(IBlochSource source, Lattice lattice, List<Vec3> found, int lower, SpectrumTolerances tol, int cap)
+    // Images of every node under the lattice's point operations, refined and kept where the bands touch there. With the
+    // operations of H(k) known, only their images are tried: those are nodes by symmetry (one diagonalisation confirms
+    // each, a refinement polishes it when round-off left it above the target), while an image under a lattice operation
+    // that H lacks is no node in general and would cost a failed refinement.
+    private static void CompleteOrbits(IBlochSource source, Lattice lattice, List<Vec3> found, int lower, SpectrumTolerances tol, int cap,
+                                       SymmetryGroup? group)
     {
-        var ops = LatticeRotations.Of(lattice);
+        Func<Vec3, Vec3>[] ops = group is { Order: > 1 } g
+            ? [.. g.Operations.Select(o => o.ReciprocalMatrix).Distinct().Select(m => (Func<Vec3, Vec3>)(k => Image(lattice, m, k)))]
+            : [.. LatticeRotations.Of(lattice).Select(r => (Func<Vec3, Vec3>)(k => LatticeRotations.Apply(r, k)))];
         var refiner = new NodeRefiner(source, tol.ReciprocalLength);
+        if (group is { Order: > 1 })
+        {
+            // found is ordered by ascending gap: each orbit is rebuilt from its best-converged member, so its nodes are
+            // exact images of one another (the same energy to round-off), not separately refined near-copies.
+            var ordered = new List<Vec3>(found);
+            found.Clear();
+            foreach (var k in ordered)
+            {
+                if (found.Count >= cap) break;
+                if (!AddDistinct(found, lattice, k, tol.Merge)) continue;
+                foreach (var op in ops)
+                {
+                    var image = op(k);
+                    if (found.Any(f => PeriodicDistance(lattice, f, image) < tol.Merge)) continue;
+                    var p = refiner.Refine(image, lower, tol.NodeGap, tol.Degeneracy);
+                    if (p.Converged) AddDistinct(found, lattice, p.K, tol.Merge);
+                    if (found.Count >= cap) break;
+                }
+            }
+            return;
+        }
         for (int i = 0; i < found.Count && found.Count < cap; i++)
             foreach (var op in ops)
             {
-                var image = LatticeRotations.Apply(op, found[i]);
+                var image = op(found[i]);
                 if (found.Any(f => PeriodicDistance(lattice, f, image) < tol.Merge)) continue;
                 var p = refiner.Refine(image, lower, tol.NodeGap, tol.Degeneracy);
                 if (p.Converged) AddDistinct(found, lattice, p.K, tol.Merge);
                 if (found.Count >= cap) break;
             }
+    }
+
+    /// <summary>Pinned within <see cref="SpectrumTolerances.Pinning"/> of mu, else above or below it.</summary>
+    public static NodePinning Pin(double offset, SpectrumTolerances tol) =>
+        Math.Abs(offset) <= tol.Pinning ? NodePinning.Pinned : offset > 0 ? NodePinning.Above : NodePinning.Below;
+
+    // S k for an operation's action on reduced coordinates (time reversal's k -> -k included).
+    private static Vec3 Image(Lattice lattice, IntMatrix3 m, Vec3 k)
+    {
+        var u = lattice.Reduced(k);
+        return lattice.Cartesian(m.M00 * u.X + m.M01 * u.Y + m.M02 * u.Z, m.M10 * u.X + m.M11 * u.Y + m.M12 * u.Z,
+                                 m.M20 * u.X + m.M21 * u.Y + m.M22 * u.Z);
     }
 
     private static List<int> LocalMinima(KMesh mesh, double[] gap, int dim)
@@ -178,49 +260,95 @@ public static class NodeSearch
         return list;
     }
 
-    private static List<WeylNode> Characterise(IBlochSource source, List<Vec3> found, int occupied, double mu, SpectrumTolerances tol)
+    private static List<WeylNode> Characterise(IBlochSource source, List<Vec3> found, int occupied, double mu, SpectrumTolerances tol,
+                                               SymmetryGroup? group)
     {
         var lattice = source.Model.Lattice;
         int dim = lattice.Dimension;
         var ks = found.Select(k => NearestImage(lattice, k)).ToList();
-        var orbit = Orbits(lattice, source, ks, occupied - 1, tol);
-        var nodes = new WeylNode[ks.Count];
-        Parallel.For(0, ks.Count, i =>
+        // Every node is diagonalised once: its bands feed the orbit labels, the degeneracy and the energies.
+        var values = new double[ks.Count][];
+        Parallel.For(0, ks.Count, () => new BlochWorkspace(source), (i, _, ws) =>
         {
-            var ws = new BlochWorkspace(source);
-            var k = ks[i];
-            ws.Solve(k, false);
-            double ev = ws.Values[occupied - 1], ec = ws.Values[occupied], mid = 0.5 * (ev + ec);
-            double window = Math.Max(tol.Degeneracy, 10 * (ec - ev));
-            int deg = 0;
-            for (int n = 0; n < ws.Size; n++) if (Math.Abs(ws.Values[n] - mid) < window) deg++;
-            var cone = ConeFit.Compute(ws, k, occupied - 1, ConeStepFraction * tol.ReciprocalLength, dim);
-            ChiralityResult chir = default;
-            if (dim == 3)
+            ws.Solve(ks[i], false);
+            values[i] = (double[])ws.Values.Clone();
+            return ws;
+        }, _ => { });
+        var orbit = Orbits(lattice, ks, values.Select(v => 0.5 * (v[occupied - 1] + v[occupied])).ToArray(), tol);
+        var image = SymmetryImages(lattice, ks, dim == 3 ? group : null, tol);
+        var cones = new ConeFit[ks.Count];
+        var chirality = new ChiralityResult[ks.Count];
+        // Cones everywhere; fluxes only on nodes that are no symmetry image of an earlier one.
+        Parallel.For(0, ks.Count, () => new BlochWorkspace(source), (i, _, ws) =>
+        {
+            cones[i] = ConeFit.Compute(ws, ks[i], occupied - 1, ConeStepFraction * tol.ReciprocalLength, dim);
+            if (dim == 3 && image[i].Source == i)
             {
                 double nearest = double.PositiveInfinity;
-                for (int j = 0; j < ks.Count; j++) if (j != i) nearest = Math.Min(nearest, PeriodicDistance(lattice, k, ks[j]));
-                chir = SphereChirality.Resolve(source, k, nearest, cone, occupied, tol);
+                for (int j = 0; j < ks.Count; j++) if (j != i) nearest = Math.Min(nearest, PeriodicDistance(lattice, ks[i], ks[j]));
+                chirality[i] = SphereChirality.Resolve(source, ks[i], nearest, cones[i], occupied, tol);
             }
+            return ws;
+        }, _ => { });
+        var nodes = new WeylNode[ks.Count];
+        var location = new string?[ks.Count];
+        for (int i = 0; i < ks.Count; i++)
+        {
+            var k = ks[i];
+            var v = values[i];
+            double ev = v[occupied - 1], ec = v[occupied], mid = 0.5 * (ev + ec);
+            double window = Math.Max(tol.Degeneracy, 10 * (ec - ev));
+            int deg = 0;
+            for (int n = 0; n < v.Length; n++) if (Math.Abs(v[n] - mid) < window) deg++;
+            var cone = cones[i];
+            var (src, sign) = image[i];
+            // The names are those of the cubic point group, which holds every operation of H(k): an image shares its source's.
+            location[i] = src == i ? HighSymmetryLocator.Locate(lattice, k, 1e3 * SpectrumTolerances.MergeFraction) : location[src];
+            var chir = src == i ? chirality[i]
+                : new ChiralityResult(chirality[src].Chirality * sign, chirality[src].FluxOver2Pi * sign, chirality[src].Radius);
             double offset = mid - mu;
-            var pin = Math.Abs(offset) <= tol.Pinning ? NodePinning.Pinned : offset > 0 ? NodePinning.Above : NodePinning.Below;
+            var pin = Pin(offset, tol);
             var r = lattice.Reduced(k);
             nodes[i] = new WeylNode(k, new Vec3(Fold(r.X), Fold(r.Y), dim == 3 ? Fold(r.Z) : 0), mid, offset, pin, ec - ev,
                 chir.Chirality, dim == 3 ? chir.FluxOver2Pi : null, chir.Radius,
                 cone.Velocity, cone.Singular, cone.DetVelocity, cone.Tilt, cone.TiltRatio, deg,
-                HighSymmetryLocator.Locate(lattice, k, 1e3 * SpectrumTolerances.MergeFraction), orbit[i]);
-        });
+                location[i], orbit[i]);
+        }
         // Sorted on reduced coordinates rounded to the merge scale, so near-ties order the same way in every run.
         static double Key(double x) => Math.Round(x / SpectrumTolerances.MergeFraction);
         return nodes.OrderBy(n => n.Orbit).ThenBy(n => Key(n.Reduced.X)).ThenBy(n => Key(n.Reduced.Y)).ThenBy(n => Key(n.Reduced.Z)).ToList();
     }
 
+    /// <summary>
+    /// For each node, an earlier node that an operation of H(k) maps onto it and the factor its chirality picks up, or
+    /// itself. The Berry curvature is a pseudovector: a unitary operation with k-action S multiplies the chirality by
+    /// det S, an antiunitary one (time reversal, k -&gt; -k) by -det S, so time reversal keeps it and inversion flips it
+    /// (Armitage, Mele &amp; Vishwanath, Rev. Mod. Phys. 90, 015001 (2018), Sec. II.A).
+    /// </summary>
+    private static (int Source, int Sign)[] SymmetryImages(Lattice lattice, List<Vec3> ks, SymmetryGroup? group, SpectrumTolerances tol)
+    {
+        var result = new (int Source, int Sign)[ks.Count];
+        for (int i = 0; i < ks.Count; i++) result[i] = (i, 1);
+        if (group is null || group.Order <= 1) return result;
+        for (int i = 0; i < ks.Count; i++)
+        {
+            if (result[i].Source != i) continue;
+            foreach (var op in group.Operations)
+            {
+                var m = op.ReciprocalMatrix;
+                var image = Image(lattice, m, ks[i]);
+                int sign = op.TimeReversal ? -m.Determinant : m.Determinant;
+                for (int j = i + 1; j < ks.Count; j++)
+                    if (result[j].Source == j && PeriodicDistance(lattice, image, ks[j]) < tol.Merge) result[j] = (i, sign);
+            }
+        }
+        return result;
+    }
+
     // Orbit labels: nodes that a lattice operation maps onto each other at the same energy share one (union-find).
-    private static int[] Orbits(Lattice lattice, IBlochSource source, List<Vec3> ks, int lower, SpectrumTolerances tol)
+    private static int[] Orbits(Lattice lattice, List<Vec3> ks, double[] energy, SpectrumTolerances tol)
     {
         var ops = LatticeRotations.Of(lattice);
-        var refiner = new NodeRefiner(source, tol.ReciprocalLength);
-        var energy = ks.Select(k => { refiner.Gap(k, lower); return 0.5 * (refiner.Values[lower] + refiner.Values[lower + 1]); }).ToArray();
         var parent = Enumerable.Range(0, ks.Count).ToArray();
         int Root(int i) { while (parent[i] != i) i = parent[i] = parent[parent[i]]; return i; }
         for (int i = 0; i < ks.Count; i++)

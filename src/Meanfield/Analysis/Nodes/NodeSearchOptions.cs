@@ -5,7 +5,10 @@ public sealed record NodeSearchOptions
 {
     /// <summary>The default coarse mesh: divisions per reciprocal vector of the gap scan that seeds the refinement.</summary>
     public const int DefaultMesh = 16;
-    /// <summary>Coarse mesh divisions per reciprocal vector (default 16; 4 or more).</summary>
+    /// <summary>
+    /// Coarse mesh divisions per reciprocal vector (default 16; 4 or more). A pass handed to the search over a mesh at
+    /// least this fine (the solve's own) is used instead of a fresh Gamma-centred mesh.
+    /// </summary>
     public int Mesh { get; init; } = DefaultMesh;
     /// <summary>k_B T in the energy unit (default 0): a node within it of mu counts as pinned.</summary>
     public double Temperature { get; init; }

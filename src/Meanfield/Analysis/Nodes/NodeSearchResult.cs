@@ -25,6 +25,16 @@ public sealed record NodeSearchResult(
     /// <summary>Every node's chirality is determined (3D), or none is defined (2D).</summary>
     public bool ChiralitiesResolved => Dimension != 3 || Nodes.All(n => n.Chirality is not null);
 
+    /// <summary>
+    /// The same search read against another chemical potential: only the offsets and pinning depend on mu (the search,
+    /// its scales and its warnings do not), so the nodes are not searched or diagonalised again.
+    /// </summary>
+    public NodeSearchResult At(double chemicalPotential) => this with
+    {
+        ChemicalPotential = chemicalPotential,
+        Nodes = [.. Nodes.Select(n => n with { EnergyOffset = n.Energy - chemicalPotential, Pinning = NodeSearch.Pin(n.Energy - chemicalPotential, Tolerances) })],
+    };
+
     /// <summary>Sum of |chirality| over the determined ones: twice the number of Weyl pairs.</summary>
     public int AbsChirality => Nodes.Sum(n => Math.Abs(n.Chirality ?? 0));
 }

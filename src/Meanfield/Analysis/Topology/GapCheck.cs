@@ -29,6 +29,13 @@ public sealed record GapCheckResult(int Nodes, double MinimumDirectGap, double I
         return new GapCheckResult(nodes.Nodes.Count, minGap, -nodes.BandOverlap, nodes.Mesh);
     }
 
+    /// <summary>
+    /// The check read from a node search already made at this filling and the gaps found with it on a mesh (the spectrum
+    /// digest's): the same quantities <see cref="Run"/> computes, without searching again.
+    /// </summary>
+    public static GapCheckResult From(NodeSearchResult nodes, Gaps.GapReport gaps) =>
+        new(nodes.Nodes.Count, nodes.Nodes.Count > 0 ? nodes.Nodes.Min(n => n.Gap) : gaps.Direct, -nodes.BandOverlap, nodes.Mesh);
+
     private static double MeshMinimum(IBlochSource source, int occupied, int mesh)
     {
         var sp = Dos.MeshSpectrum.Compute(source, new Lattices.KMesh(source.Model.Lattice, mesh), false);

@@ -22,6 +22,11 @@ public sealed record Z2Options
     /// methods, and their agreement reported.
     /// </summary>
     public bool ParityAloneWhenInversion { get; init; }
+    /// <summary>
+    /// A gap check already made for the same Hamiltonian and filling (the spectrum digest's node search), used instead
+    /// of a fresh search on <see cref="GapMesh"/>. Default null: search.
+    /// </summary>
+    public GapCheckResult? Gap { get; init; }
 }
 
 /// <summary>
@@ -83,7 +88,7 @@ public static class Z2Invariants
         if (occupied % 2 != 0)
             return Fail(InvariantStatus.Gapless, $"{occupied} occupied bands with time reversal split a Kramers pair: no gap at this filling", null, trDefect);
 
-        var gap = GapCheckResult.Run(source, occupied, opt.GapMesh);
+        var gap = opt.Gap ?? GapCheckResult.Run(source, occupied, opt.GapMesh);
         if (!gap.HasDirectGap)
             return Fail(InvariantStatus.Gapless, $"bands {occupied - 1} and {occupied} touch at {gap.Nodes} point(s) (search mesh {gap.Mesh})", gap, trDefect);
         if (gap.IndirectGap <= 0 && !opt.AllowBandOverlap)
