@@ -60,7 +60,7 @@ internal sealed class ChunkCollector(ScanOutput output, ScanGrid grid, ShardSpec
         finally { _gate.Release(); }
     }
 
-    // A failed point's row gets the schema's groups with NaN values (r, lambda and n_f are unknown there).
+    // A failed point's row gets the schema's groups with unknown values (NaN here, null in the file).
     private ScanRow Fit(ScanRow row)
     {
         if (row.Result.Error is null || Schema is null || row.Result.Groups.Count == Schema.GroupNames.Count) return row;

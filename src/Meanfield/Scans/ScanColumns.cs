@@ -25,16 +25,16 @@ internal static class ScanColumns
         c.Add(new ValueColumn<double>("temperature_K", "K", r => r.TemperatureK, (d, v) => d.TemperatureK = v));
         c.Add(new ValueColumn<bool>("converged", "", r => r.Result.Converged, (d, v) => d.Converged = v));
         c.Add(new ValueColumn<int>("iterations", "", r => r.Result.Iterations, (d, v) => d.Iterations = v));
-        c.Add(new ValueColumn<double>("residual_norm", "", r => r.Result.ResidualNorm, (d, v) => d.ResidualNorm = v));
-        c.Add(new ValueColumn<double>("mu", "{E}", r => r.Result.Mu, (d, v) => d.Mu = v));
-        c.Add(new ValueColumn<double>("free_energy", "{E} per cell", r => r.Result.FreeEnergy, (d, v) => d.FreeEnergy = v));
+        c.Add(new NullableColumn<double>("residual_norm", "", r => Known(r.Result.ResidualNorm), (d, v) => d.ResidualNorm = v ?? double.NaN));
+        c.Add(new NullableColumn<double>("mu", "{E}", r => Known(r.Result.Mu), (d, v) => d.Mu = v ?? double.NaN));
+        c.Add(new NullableColumn<double>("free_energy", "{E} per cell", r => Known(r.Result.FreeEnergy), (d, v) => d.FreeEnergy = v ?? double.NaN));
         for (int i = 0; i < s.GroupNames.Count; i++)
         {
             int k = i;
             string g = s.GroupNames[k];
-            c.Add(new ValueColumn<double>("r_" + g, "", r => r.Result.Groups[k].R, (d, v) => d.R[k] = v));
-            c.Add(new ValueColumn<double>("lambda_" + g, "{E}", r => r.Result.Groups[k].Lambda, (d, v) => d.Lambda[k] = v));
-            c.Add(new ValueColumn<double>("n_f_" + g, "electrons per site", r => r.Result.Groups[k].Nf, (d, v) => d.Nf[k] = v));
+            c.Add(new NullableColumn<double>("r_" + g, "", r => Known(r.Result.Groups[k].R), (d, v) => d.R[k] = v ?? double.NaN));
+            c.Add(new NullableColumn<double>("lambda_" + g, "{E}", r => Known(r.Result.Groups[k].Lambda), (d, v) => d.Lambda[k] = v ?? double.NaN));
+            c.Add(new NullableColumn<double>("n_f_" + g, "electrons per site", r => Known(r.Result.Groups[k].Nf), (d, v) => d.Nf[k] = v ?? double.NaN));
         }
         // The digest's columns: read from and written to the one SpectrumColumns record.
         c.Add(new NullableColumn<double>("direct_gap", "{E}", r => r.Result.Spectrum.DirectGap, (d, v) => d.Spectrum = d.Spectrum with { DirectGap = v }));
@@ -58,4 +58,7 @@ internal static class ScanColumns
         if (s.IncludeSolverState) c.Add(new SolverStateColumn());
         return c;
     }
+
+    /// <summary>A value for the file: null where the point has none (a failed solve), never NaN.</summary>
+    private static double? Known(double v) => double.IsFinite(v) ? v : null;
 }

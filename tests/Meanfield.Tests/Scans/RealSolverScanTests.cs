@@ -42,7 +42,7 @@ public sealed class RealSolverScanTests : IDisposable
         await using var stream = File.OpenRead(file);
         await using var reader = await ParquetReader.CreateAsync(stream);
         using var group = reader.OpenRowGroupReader(0);
-        var converged = new bool[9]; var phase = new string[9]; var r = new double[9]; var v = new double?[9]; var gap = new double?[9];
+        var converged = new bool[9]; var phase = new string[9]; var r = new double?[9]; var v = new double?[9]; var gap = new double?[9];
         await group.ReadAsync<bool>(reader.Schema.FindDataField("converged"), converged);
         await group.ReadAsync(reader.Schema.FindDataField("phase"), phase);
         await group.ReadAsync<double>(reader.Schema.FindDataField("r_Va"), r);
@@ -54,11 +54,11 @@ public sealed class RealSolverScanTests : IDisposable
             // Two electrons per site fill the lower hybridized band: a Kondo insulator (Hewson, The Kondo Problem to Heavy Fermions (1993), ch. 7; common practice).
             // Without spin-orbit coupling the bands are two spin copies, so every Z2 index vanishes (common practice).
             Assert.Equal("trivial-kondo-insulator", phase[i]);
-            Assert.InRange(r[i], 1e-3, 1);
+            Assert.InRange(r[i]!.Value, 1e-3, 1);
             // Hybridized bands E = (e + ef~)/2 -+ sqrt(((e - ef~)/2)^2 + (rV)^2) (Hewson, The Kondo Problem to Heavy
             // Fermions (1993), ch. 7): the direct gap sqrt((e - ef~)^2 + 4 r^2 V^2) is at least 2 r V.
-            Assert.True(gap[i] >= 2 * r[i] * v[i]!.Value * (1 - 1e-9), $"direct gap {gap[i]} < 2rV = {2 * r[i] * v[i]!.Value}");
-            Assert.True(gap[i] < 2 * r[i] * v[i]!.Value * 1.5, $"direct gap {gap[i]} far above 2rV = {2 * r[i] * v[i]!.Value}");
+            Assert.True(gap[i] >= 2 * r[i]!.Value * v[i]!.Value * (1 - 1e-9), $"direct gap {gap[i]} < 2rV = {2 * r[i]!.Value * v[i]!.Value}");
+            Assert.True(gap[i] < 2 * r[i]!.Value * v[i]!.Value * 1.5, $"direct gap {gap[i]} far above 2rV = {2 * r[i]!.Value * v[i]!.Value}");
         }
     }
 

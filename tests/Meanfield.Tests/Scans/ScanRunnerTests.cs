@@ -15,6 +15,31 @@ public sealed class ScanRunnerTests : IDisposable
 
     private string Out(string name = "scan.parquet") => Path.Combine(_dir, name);
 
+    // A point whose solve throws has no r, lambda, n_f, mu or free energy: the file holds nulls there, never NaN
+    // (common practice: a missing value is missing, not a number), and the message in the error column.
+    [Fact]
+    public async Task A_failed_point_writes_nulls_and_its_error()
+    {
+        var grid = ScanTestData.Grid();
+        var fake = new FakeSolver();
+        ScanPointResult Solve(ScanPoint p, ScanPointResult? warm, CancellationToken ct) =>
+            p.Id == 3 ? throw new InvalidOperationException("solver exploded at point 3") : fake.Solve(p, warm, ct);
+        await ScanRunner.RunAsync(grid, Solve, new ScanOutput(Out(), ScanTestData.Provenance()), new ScanRunOptions(), null, CancellationToken.None);
+        await using var stream = File.OpenRead(Out());
+        await using var reader = await ParquetReader.CreateAsync(stream);
+        using var group = reader.OpenRowGroupReader(0);
+        var ids = new int[20]; var r = new double?[20]; var mu = new double?[20]; var error = new string[20];
+        await group.ReadAsync<int>(reader.Schema.FindDataField("point_id"), ids);
+        await group.ReadAsync<double>(reader.Schema.FindDataField("r_f"), r);
+        await group.ReadAsync<double>(reader.Schema.FindDataField("mu"), mu);
+        await group.ReadAsync(reader.Schema.FindDataField("error"), error);
+        int row = Array.IndexOf(ids, 3);
+        Assert.Null(r[row]);
+        Assert.Null(mu[row]);
+        Assert.Contains("solver exploded", error[row]);
+        Assert.All(Enumerable.Range(0, 20).Where(i => i != row), i => Assert.True(r[i] is { } x && double.IsFinite(x)));
+    }
+
     [Fact]
     public async Task Full_run_writes_schema_values_and_metadata()
     {
@@ -44,8 +69,8 @@ public sealed class ScanRunnerTests : IDisposable
 
         using var group = reader.OpenRowGroupReader(0);
         Assert.Equal(20, group.RowCount);
-        var ids = new int[20]; var v = new double[20]; var ratio = new double[20]; var mu = new double[20];
-        var r = new double[20]; var converged = new bool[20]; var gap = new double?[20]; var phase = new string[20];
+        var ids = new int[20]; var v = new double[20]; var ratio = new double[20]; var mu = new double?[20];
+        var r = new double?[20]; var converged = new bool[20]; var gap = new double?[20]; var phase = new string[20];
         await group.ReadAsync<int>(reader.Schema.FindDataField("point_id"), ids);
         await group.ReadAsync<double>(reader.Schema.FindDataField("axis_V"), v);
         await group.ReadAsync<double>(reader.Schema.FindDataField("axis_ratio"), ratio);
@@ -60,8 +85,8 @@ public sealed class ScanRunnerTests : IDisposable
             int i = k / 4, j = k % 4;
             Assert.Equal(50 + 62.5 * i, v[k], 12);
             Assert.Equal(0.1 + 0.4 / 3 * j, ratio[k], 12);
-            Assert.Equal(FakeSolver.Mu(v[k], ratio[k]), mu[k], 12);
-            Assert.Equal(FakeSolver.R(v[k], ratio[k]), r[k], 12);
+            Assert.Equal(FakeSolver.Mu(v[k], ratio[k]), mu[k]!.Value, 12);
+            Assert.Equal(FakeSolver.R(v[k], ratio[k]), r[k]!.Value, 12);
             Assert.Equal((i + j) % 5 != 0, converged[k]);
             Assert.Equal(ratio[k] > 0.3 ? null : 2 * r[k], gap[k]);
             Assert.Equal(ratio[k] > 0.3 ? "weyl-semimetal" : "kondo-insulator", phase[k]);
