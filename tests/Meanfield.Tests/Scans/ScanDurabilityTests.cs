@@ -8,7 +8,7 @@ namespace Meanfield.Tests.Scans;
 /// <summary>
 /// A scan subprocess killed (SIGKILL, no chance to clean up) at random points and resumed until done must give the
 /// rows of an uninterrupted run: every point once, the same values, nothing left behind (common practice for
-/// checkpointed batch jobs: the journal survives kill -9). Bounded and seeded: a tiny mesh, ten points, four kills.
+/// checkpointed batch jobs: the journal survives kill -9). Bounded and seeded: a small mesh, thirty points, four kills.
 /// </summary>
 public class ScanDurabilityTests
 {
@@ -17,7 +17,7 @@ public class ScanDurabilityTests
     private static readonly TimeSpan Patience = TimeSpan.FromSeconds(60);
 
     private const string Scan = """
-        # Durability test scan (invented numbers): ten values of V on a 6^3 mesh.
+        # Durability test scan (invented numbers): thirty values of V on a 10^3 mesh (slow enough for kills to land).
         model = "model.toml"
         temperature = "2 K"
 
@@ -25,10 +25,10 @@ public class ScanDurabilityTests
         name = "V"
         from = 120
         to = 230
-        points = 10
+        points = 30
 
         [solver]
-        mesh = 6
+        mesh = 10
         """;
 
     [Fact]
