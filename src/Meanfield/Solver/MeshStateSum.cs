@@ -35,6 +35,8 @@ public sealed class MeshStateSum : IStateSum, ISaddlePointDerivatives
         : $"k-mesh {Mesh}, {Irreducible.Count} irreducible points ({Irreducible.ActionCount} operations on k)";
     /// <summary>Seconds spent in diagonalisation during the last <see cref="Fill"/>, summed over threads.</summary>
     public double LastDiagonalisationSeconds { get; private set; }
+    /// <summary>Seconds spent in diagonalisation over every pass of this sum, summed over threads.</summary>
+    public double DiagonalisationSeconds { get; private set; }
     /// <summary>Whether eigenvectors are kept for <see cref="TryDerivatives"/>.</summary>
     public bool KeepsVectors => _vectors is not null;
 
@@ -182,6 +184,7 @@ public sealed class MeshStateSum : IStateSum, ISaddlePointDerivatives
             Interlocked.Add(ref ticks, w.DiagonalisationTicks);
         });
         LastDiagonalisationSeconds = ticks / (double)System.Diagnostics.Stopwatch.Frequency;
+        DiagonalisationSeconds += LastDiagonalisationSeconds;
     }
 
     private void FillPoint(RenormalizedHamiltonian ham, int p, Workspace w)

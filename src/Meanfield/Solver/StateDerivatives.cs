@@ -50,7 +50,13 @@ internal sealed class StateDerivatives
                     double mu, double t)
     {
         int n = _n, nn = n * n, g = _g, m = _m;
-        for (int a = 0; a < n; a++) { _f[a] = FermiDirac.Occupation(e[a] - mu, t); _d[a] = FermiDirac.NegativeDerivative(e[a] - mu, t); }
+        for (int a = 0; a < n; a++)
+        {
+            double x = e[a] - mu;
+            // Beyond |x| = 746 T the exponentials are 0 in doubles: the same values without libm's slow underflow path.
+            if (t > 0 && Math.Abs(x / t) > 746) { _f[a] = x < 0 ? 1 : 0; _d[a] = 0; continue; }
+            _f[a] = FermiDirac.Occupation(x, t); _d[a] = FermiDirac.NegativeDerivative(x, t);
+        }
         // W_it = (S G V)_it on the f rows only (D_g needs no other rows).
         for (int q = 0; q < _fIndex.Length; q++)
         {
