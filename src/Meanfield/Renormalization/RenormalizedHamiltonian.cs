@@ -40,8 +40,18 @@ public sealed class RenormalizedHamiltonian : IBlochSource
     [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)] // hot loop: skip tier-0 code
     public void Assemble(Vec3 k, Span<Complex> h, Span<Complex> scaled)
     {
-        int n = Size;
         Bare.AssembleParts(k, h, scaled);
+        Combine(h, scaled);
+    }
+
+    /// <summary>
+    /// H_MF from the bare parts: <paramref name="h"/> holds the fixed part U(k) on entry and H_MF(k) on return;
+    /// <paramref name="scaled"/> is the bare S(k) (<see cref="BlochHamiltonian.AssembleParts"/>), for callers that keep the parts of a mesh.
+    /// </summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)] // hot loop: skip tier-0 code
+    public void Combine(Span<Complex> h, ReadOnlySpan<Complex> scaled)
+    {
+        int n = Size;
         for (int i = 0; i < n; i++)
         {
             double gi = _scale[i];

@@ -45,14 +45,16 @@ public sealed class MeshStateSum : IStateSum, ISaddlePointDerivatives
 
     /// <summary>A sum over the wedge of <paramref name="group"/>; <paramref name="keepVectors"/> keeps n^2 amplitudes per wedge point.</summary>
     public MeshStateSum(BlochHamiltonian bare, KMesh mesh, SymmetryGroup group, bool keepVectors)
-        : this(bare, new IrreducibleMesh(mesh, group), keepVectors, null) { }
+        : this(bare, new IrreducibleMesh(mesh, group), keepVectors, false, null) { }
 
     /// <summary>
     /// A sum over <paramref name="wedge"/> that takes over the buffers (state table, eigenvectors, per-thread
     /// workspaces) of <paramref name="recycle"/>, an earlier sum over the same wedge for a model of the same structure
     /// that is no longer used: every buffer is overwritten before it is read, so results do not depend on it.
+    /// <paramref name="keepParts"/> keeps the bare parts U(k) and S(k) of every wedge point (2 n^2 amplitudes each), made
+    /// once on the first pass instead of at every pass and every Jacobian (the same numbers, so the same results).
     /// </summary>
-    internal MeshStateSum(BlochHamiltonian bare, IrreducibleMesh wedge, bool keepVectors, MeshStateSum? recycle)
+    internal MeshStateSum(BlochHamiltonian bare, IrreducibleMesh wedge, bool keepVectors, bool keepParts, MeshStateSum? recycle)
     {
         _bare = bare; Mesh = wedge.Mesh;
         Irreducible = wedge;
@@ -68,6 +70,7 @@ public sealed class MeshStateSum : IStateSum, ISaddlePointDerivatives
             // Same wedge: the points and their orbit weights are the table's already.
             _points = recycle._points; _table = recycle._table; _work = recycle._work; _chunkDerivatives = recycle._chunkDerivatives;
             if (keepVectors) _vectors = recycle._vectors;
+            if (keepParts) _parts = recycle._parts; // refilled for this model on the first pass
         }
         else
         {
@@ -82,6 +85,39 @@ public sealed class MeshStateSum : IStateSum, ISaddlePointDerivatives
             _work = new ThreadLocal<Workspace>(() => new Workspace(n));
         }
         if (keepVectors && _vectors is null && (long)count * n * n < Array.MaxLength) _vectors = new Complex[count * n * n];
+        if (keepParts && _parts is null && 2L * count * n * n < Array.MaxLength) _parts = new Complex[2 * count * n * n];
+    }
+
+    /// <summary>U(k) then S(k) of every wedge point (2 n^2 per point), or null; valid once <see cref="_partsMade"/>.</summary>
+    private readonly Complex[]? _parts;
+    private bool _partsMade;
+
+    /// <summary>Makes the bare parts of every wedge point once (they do not depend on the amplitudes).</summary>
+    private void MakeParts()
+    {
+        if (_parts is null || _partsMade) return;
+        int nn = _bare.Size * _bare.Size;
+        Run((w, lo, hi) =>
+        {
+            for (int p = lo; p < hi; p++)
+                _bare.AssembleParts(Mesh.Cartesian(_points[p]), _parts.AsSpan(2 * p * nn, nn), _parts.AsSpan((2 * p + 1) * nn, nn));
+        });
+        _partsMade = true;
+    }
+
+    /// <summary>H_MF at wedge point <paramref name="p"/> into the workspace's H; returns the bare S(k) there.</summary>
+    private ReadOnlySpan<Complex> Assemble(RenormalizedHamiltonian ham, int p, Workspace w)
+    {
+        if (_parts is null)
+        {
+            ham.Assemble(Mesh.Cartesian(_points[p]), w.H, w.S);
+            return w.S;
+        }
+        int nn = _bare.Size * _bare.Size;
+        _parts.AsSpan(2 * p * nn, nn).CopyTo(w.H);
+        var scaled = _parts.AsSpan((2 * p + 1) * nn, nn);
+        ham.Combine(w.H, scaled);
+        return scaled;
     }
 
     private readonly bool _ffBonds;
@@ -119,6 +155,7 @@ public sealed class MeshStateSum : IStateSum, ISaddlePointDerivatives
         var ham = new RenormalizedHamiltonian(_bare, amplitudes);
         _vectorsOf = _vectors is null ? null : ham;
         _filledAt = amplitudes;
+        MakeParts();
         Run((w, lo, hi) => { for (int p = lo; p < hi; p++) FillPoint(ham, p, w); });
         return _table;
     }
@@ -134,11 +171,12 @@ public sealed class MeshStateSum : IStateSum, ISaddlePointDerivatives
         _filledAt = null;
         int n = _bare.Size;
         Array.Clear(_table.FWeight); Array.Clear(_table.EnergySlope);
+        MakeParts();
         Run((w, lo, hi) =>
         {
             for (int p = lo; p < hi; p++)
             {
-                ham.Assemble(Mesh.Cartesian(_points[p]), w.H, w.S);
+                Assemble(ham, p, w);
                 long t0 = System.Diagnostics.Stopwatch.GetTimestamp();
                 w.Solver.Solve(w.H, w.E, Span<Complex>.Empty);
                 w.DiagonalisationTicks += System.Diagnostics.Stopwatch.GetTimestamp() - t0;
@@ -190,11 +228,11 @@ public sealed class MeshStateSum : IStateSum, ISaddlePointDerivatives
     private void FillPoint(RenormalizedHamiltonian ham, int p, Workspace w)
     {
         int n = _bare.Size;
-        ham.Assemble(Mesh.Cartesian(_points[p]), w.H, w.S);
+        var scaled = Assemble(ham, p, w);
         long t0 = System.Diagnostics.Stopwatch.GetTimestamp();
         w.Solver.Solve(w.H, w.E, w.V);
         w.DiagonalisationTicks += System.Diagnostics.Stopwatch.GetTimestamp() - t0;
-        StateProjection.Store(_table, p * n, n, w.E, w.V, w.S, ham.Scale, _fIndex, _fGroup);
+        StateProjection.Store(_table, p * n, n, w.E, w.V, scaled, ham.Scale, _fIndex, _fGroup);
         if (_vectors is not null) w.V.AsSpan().CopyTo(_vectors.AsSpan(p * n * n, n * n));
     }
 
@@ -208,11 +246,14 @@ public sealed class MeshStateSum : IStateSum, ISaddlePointDerivatives
         Run((w, c, lo, hi) =>
         {
             var d = sums[c];
+            int nn = n * n;
             for (int p = lo; p < hi; p++)
             {
-                _bare.AssembleParts(Mesh.Cartesian(_points[p]), w.H, w.S);
+                ReadOnlySpan<Complex> scaled;
+                if (_partsMade) scaled = _parts.AsSpan((2 * p + 1) * nn, nn);
+                else { _bare.AssembleParts(Mesh.Cartesian(_points[p]), w.H, w.S); scaled = w.S; }
                 d.Add(_table.Weight[p * n], _table.Energy.AsSpan(p * n, n), _vectors.AsSpan(p * n * n, n * n),
-                      w.S, ham.Scale, mu, temperature);
+                      scaled, ham.Scale, mu, temperature);
             }
         });
         for (int c = 1; c < sums.Length; c++) sums[0].Merge(sums[c]);

@@ -88,7 +88,8 @@ public sealed partial class SaddlePointSolver
             bool keep = MeshMemory.Check(model, settings, group, out var mesh) && settings.AnalyticJacobian;
             var wedge = reuse is null ? new IrreducibleMesh(mesh, group) : reuse.Wedge(mesh, group);
             var bare = Bare;
-            var sum = reuse is null ? new MeshStateSum(bare, wedge, keep, null) : reuse.Sum(wedge, last => new MeshStateSum(bare, wedge, keep, last));
+            bool parts = keep && MeshMemory.PartsFit(model, settings, group);
+            var sum = reuse is null ? new MeshStateSum(bare, wedge, keep, parts, null) : reuse.Sum(wedge, last => new MeshStateSum(bare, wedge, keep, parts, last));
             _sum = sum;
             var ir = sum.Irreducible;
             _reduction = new MeshReduction(group.Order, group.UnitaryCount, ir.ActionCount, mesh.Count, ir.Count,
