@@ -56,7 +56,12 @@ public sealed class RenormalizedHamiltonian : IBlochSource
         {
             double gi = _scale[i];
             int row = i * n;
-            for (int j = 0; j < n; j++) h[row + j] += gi * _scale[j] * scaled[row + j];
+            for (int j = 0; j < n; j++)
+            {
+                // h += (g_i g_j) S_ij, written out (the JIT does not inline Complex's operators here; same bits).
+                double gg = gi * _scale[j]; var sij = scaled[row + j]; var hij = h[row + j];
+                h[row + j] = new Complex(hij.Real + gg * sij.Real, hij.Imaginary + gg * sij.Imaginary);
+            }
             h[row + i] += _diagonal[i];
         }
     }
