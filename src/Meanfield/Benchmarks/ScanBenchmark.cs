@@ -7,7 +7,7 @@ namespace Meanfield.Benchmarks;
 /// <param name="Points">Grid points solved.</param>
 /// <param name="Mesh">k-mesh divisions of every solve.</param>
 /// <param name="WallSeconds">Wall time of the whole scan (s).</param>
-/// <param name="DiagonalisationFraction">Estimated share of the available CPU time (wall x cores) spent diagonalising
+/// <param name="DiagonalisationFraction">Measured share of the available CPU time (wall x cores) spent diagonalising
 /// inside the saddle-point solves.</param>
 /// <param name="DigestSeconds">Wall seconds of the spectrum digests (phase, nodes, gaps, DOS, invariants) summed over
 /// the points (points run in parallel, so this can exceed the scan's wall time).</param>

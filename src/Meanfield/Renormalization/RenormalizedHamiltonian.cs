@@ -40,13 +40,28 @@ public sealed class RenormalizedHamiltonian : IBlochSource
     [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)] // hot loop: skip tier-0 code
     public void Assemble(Vec3 k, Span<Complex> h, Span<Complex> scaled)
     {
-        int n = Size;
         Bare.AssembleParts(k, h, scaled);
+        Combine(h, scaled);
+    }
+
+    /// <summary>
+    /// H_MF from the bare parts: <paramref name="h"/> holds the fixed part U(k) on entry and H_MF(k) on return;
+    /// <paramref name="scaled"/> is the bare S(k) (<see cref="BlochHamiltonian.AssembleParts"/>), for callers that keep the parts of a mesh.
+    /// </summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)] // hot loop: skip tier-0 code
+    public void Combine(Span<Complex> h, ReadOnlySpan<Complex> scaled)
+    {
+        int n = Size;
         for (int i = 0; i < n; i++)
         {
             double gi = _scale[i];
             int row = i * n;
-            for (int j = 0; j < n; j++) h[row + j] += gi * _scale[j] * scaled[row + j];
+            for (int j = 0; j < n; j++)
+            {
+                // h += (g_i g_j) S_ij, written out (the JIT does not inline Complex's operators here; same bits).
+                double gg = gi * _scale[j]; var sij = scaled[row + j]; var hij = h[row + j];
+                h[row + j] = new Complex(hij.Real + gg * sij.Real, hij.Imaginary + gg * sij.Imaginary);
+            }
             h[row + i] += _diagonal[i];
         }
     }

@@ -45,9 +45,19 @@ public sealed record BandFilling(double Mu, double GrandPotential, double[] FOcc
         for (int s = 0; s < table.Count; s++)
         {
             double x = table.Energy[s] - mu;
-            double f = s == partial ? fraction : Numerics.FermiDirac.Occupation(x, temperature);
             double w = table.Weight[s];
-            omega += w * (s == partial ? fraction * x : Numerics.FermiDirac.GrandPotential(x, temperature));
+            double f;
+            // Far from mu the Fermi function is exactly 0 or 1 in doubles: skip the exponentials (same bits).
+            if (temperature > 0 && s != partial && Math.Abs(x / temperature) > NoExponent)
+            {
+                if (x > 0) continue;
+                f = 1; omega += w * x;
+            }
+            else
+            {
+                f = s == partial ? fraction : Numerics.FermiDirac.Occupation(x, temperature);
+                omega += w * (s == partial ? fraction * x : Numerics.FermiDirac.GrandPotential(x, temperature));
+            }
             if (f == 0) continue;
             double wf = w * f;
             int b = s * g;
@@ -79,6 +89,12 @@ public sealed record BandFilling(double Mu, double GrandPotential, double[] FOcc
             ? FermiLevelStatus.DegenerateAtFermiLevel : FermiLevelStatus.Regular;
         return new BandFilling(mu, omega, nf, slope, status) { Window = result.Window };
     }
+
+    /// <summary>
+    /// |E - mu| / T beyond which e^{-|E - mu|/T} is 0 in doubles (below half the smallest subnormal, e^-745.13), so
+    /// occupations are exactly 0 or 1 there; skipping the exponential also skips libm's slow underflow path.
+    /// </summary>
+    private const double NoExponent = 746;
 
     private static double SolveMuThermal(StateTable table, double electrons, double t, double? hint)
     {
@@ -112,8 +128,8 @@ public sealed record BandFilling(double Mu, double GrandPotential, double[] FOcc
             var energy = table.Energy; var weight = table.Weight;
             for (int s = start; s < end; s++)
             {
-                double x = (energy[s] - mu) / t;
-                double e = Math.Exp(-Math.Abs(x)), inv = 1 / (1 + e);
+                double x = (energy[s] - mu) / t, ax = Math.Abs(x);
+                double e = ax > NoExponent ? 0 : Math.Exp(-ax), inv = 1 / (1 + e);
                 n += weight[s] * (x > 0 ? e * inv : inv);
                 dn += weight[s] * e * inv * inv;
             }

@@ -55,6 +55,18 @@ public static class MeshMemory
         return withVectors <= VectorFraction * available;
     }
 
+    /// <summary>
+    /// Whether the bare parts U(k) and S(k) of every wedge point (2 n^2 amplitudes each, made once per solve instead of at
+    /// every pass) fit beside the kept eigenvectors within <see cref="VectorFraction"/>; never changes whether the
+    /// eigenvectors are kept.
+    /// </summary>
+    public static bool PartsFit(BoundModel model, SolverSettings settings, SymmetryGroup group)
+    {
+        var (wedge, _, _, withVectors) = Estimate(model, settings, group);
+        long amplitudes = 2 * wedge * model.BasisSize * model.BasisSize;
+        return amplitudes < Array.MaxLength && withVectors + (long)(CoarseOverhead * amplitudes * 16) <= VectorFraction * Available;
+    }
+
     /// <summary>Bytes as "4.8 GB" / "12 MB".</summary>
     public static string Gigabytes(long bytes) => bytes >= 1L << 30
         ? FormattableString.Invariant($"{bytes / (double)(1L << 30):F1} GB")

@@ -11,7 +11,7 @@ public sealed partial class SaddlePointSolver
     private (double[] Start, double[]? Jacobian)? CoarseSeed(CancellationToken ct)
     {
         if (_model.IsMomentumFree || _settings.InitialGuess is not null || _settings.Mesh < 24) return null;
-        var coarse = new SaddlePointSolver(_model, _settings with { Mesh = _settings.Mesh / 2, Tolerance = Math.Max(_settings.Tolerance, 1e-8) }, _group);
+        var coarse = new SaddlePointSolver(_model, _settings with { Mesh = _settings.Mesh / 2, Tolerance = Math.Max(_settings.Tolerance, 1e-8) }, _group, _reuse);
         var sp = coarse.Solve(ct);
         CoarsePasses = coarse._passes + coarse.CoarsePasses;
         if (!sp.Converged || sp.Branch != SaddlePointBranch.Kondo) return null;

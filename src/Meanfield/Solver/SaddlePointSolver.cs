@@ -39,11 +39,22 @@ public sealed partial class SaddlePointSolver
     /// shell, a finite U, a shell group of unequal N and Q or with Q outside (0, N), an impossible electron count, or a
     /// mesh too large for the machine.</exception>
     /// <exception cref="ArgumentException">A [solver] symmetry operation the model breaks.</exception>
-    public SaddlePointSolver(BoundModel model, SolverSettings settings) : this(model, settings, null) { }
+    public SaddlePointSolver(BoundModel model, SolverSettings settings) : this(model, settings, null, null) { }
+
+    /// <summary>
+    /// A solver that shares what it can with earlier solves through <paramref name="reuse"/> (the points of a scan
+    /// segment): the symmetry group when it still holds, the wedges and the state buffers; results are the same.
+    /// </summary>
+    /// <exception cref="RequestError">As for the constructor without reuse.</exception>
+    /// <exception cref="ArgumentException">A [solver] symmetry operation the model breaks.</exception>
+    public SaddlePointSolver(BoundModel model, SolverSettings settings, SolveReuse? reuse) : this(model, settings, null, reuse) { }
+
+    private readonly SolveReuse? _reuse;
 
     /// <summary>A solver that reuses a symmetry group already found for the same model (the half-mesh start).</summary>
-    private SaddlePointSolver(BoundModel model, SolverSettings settings, SymmetryGroup? group)
+    private SaddlePointSolver(BoundModel model, SolverSettings settings, SymmetryGroup? group, SolveReuse? reuse)
     {
+        _reuse = reuse;
         settings.Validate();
         _model = model; _settings = settings;
         Bare = new BlochHamiltonian(model);
@@ -71,10 +82,14 @@ public sealed partial class SaddlePointSolver
         else
         {
             // The T = 0 tetrahedron filling needs every corner of the full mesh in index order: no wedge reduction there.
-            group ??= SymmetryGroup.Find(Bare, settings.Temperature <= 0 ? SymmetryRequest.None : settings.Symmetry);
+            var request = settings.Temperature <= 0 ? SymmetryRequest.None : settings.Symmetry;
+            group ??= reuse is null ? SymmetryGroup.Find(Bare, request) : reuse.Group(Bare, request);
             _group = group;
-            bool keep = MeshMemory.Check(model, settings, group, out var mesh);
-            var sum = new MeshStateSum(Bare, mesh, group, keep && settings.AnalyticJacobian);
+            bool keep = MeshMemory.Check(model, settings, group, out var mesh) && settings.AnalyticJacobian;
+            var wedge = reuse is null ? new IrreducibleMesh(mesh, group) : reuse.Wedge(mesh, group);
+            var bare = Bare;
+            bool parts = keep && MeshMemory.PartsFit(model, settings, group);
+            var sum = reuse is null ? new MeshStateSum(bare, wedge, keep, parts, null) : reuse.Sum(wedge, last => new MeshStateSum(bare, wedge, keep, parts, last));
             _sum = sum;
             var ir = sum.Irreducible;
             _reduction = new MeshReduction(group.Order, group.UnitaryCount, ir.ActionCount, mesh.Count, ir.Count,

@@ -50,16 +50,30 @@ internal sealed class StateDerivatives
                     double mu, double t)
     {
         int n = _n, nn = n * n, g = _g, m = _m;
-        for (int a = 0; a < n; a++) { _f[a] = FermiDirac.Occupation(e[a] - mu, t); _d[a] = FermiDirac.NegativeDerivative(e[a] - mu, t); }
+        for (int a = 0; a < n; a++)
+        {
+            double x = e[a] - mu;
+            // Beyond |x| = 746 T the exponentials are 0 in doubles: the same values without libm's slow underflow path.
+            if (t > 0 && Math.Abs(x / t) > 746) { _f[a] = x < 0 ? 1 : 0; _d[a] = 0; continue; }
+            _f[a] = FermiDirac.Occupation(x, t); _d[a] = FermiDirac.NegativeDerivative(x, t);
+        }
         // W_it = (S G V)_it on the f rows only (D_g needs no other rows).
         for (int q = 0; q < _fIndex.Length; q++)
         {
             int row = _fIndex[q] * n;
             for (int c = 0; c < n; c++)
             {
-                Complex sum = 0;
-                for (int j = 0; j < n; j++) sum += s[row + j] * (scale[j] * v[j * n + c]);
-                _w[q * n + c] = sum;
+                // Written out (the JIT does not inline Complex's operators here): the same operations in the same order.
+                double re = 0, im = 0;
+                for (int j = 0; j < n; j++)
+                {
+                    var vj = v[j * n + c]; double gj = scale[j];
+                    double xr = gj * vj.Real, xi = gj * vj.Imaginary;
+                    var sij = s[row + j];
+                    re += sij.Real * xr - sij.Imaginary * xi;
+                    im += sij.Imaginary * xr + sij.Real * xi;
+                }
+                _w[q * n + c] = new Complex(re, im);
             }
         }
         var ops = _ops.AsSpan();

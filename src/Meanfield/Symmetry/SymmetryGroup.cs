@@ -1,3 +1,4 @@
+using Meanfield.Binding;
 using Meanfield.Bloch;
 
 namespace Meanfield.Symmetry;
@@ -12,7 +13,10 @@ public sealed class SymmetryGroup
 {
     /// <summary>The operations, identity first.</summary>
     public IReadOnlyList<SymmetryOperation> Operations { get; }
-    /// <summary>The verdict on every candidate (the lattice's point operations, each with and without time reversal).</summary>
+    /// <summary>
+    /// The verdict on every candidate (the lattice's point operations, each with and without time reversal); for a group
+    /// carried over from a neighbouring model (<see cref="CarriedOver"/>) only its own operations, judged on the new model.
+    /// </summary>
     public IReadOnlyList<OperationCheck> Checks { get; }
     /// <summary>Number of operations (the order of the magnetic point group found).</summary>
     public int Order => Operations.Count;
@@ -23,9 +27,13 @@ public sealed class SymmetryGroup
     /// <summary>Order of the lattice's point group (the candidates without time reversal).</summary>
     public int LatticeOrder { get; }
 
+    /// <summary>The model the operations were verified on last (null for <see cref="Trivial"/>); what <see cref="CarriedOver"/> compares.</summary>
+    private BoundModel? _model;
+    private bool _planar;
+
     private SymmetryGroup(IReadOnlyList<SymmetryOperation> ops, IReadOnlyList<OperationCheck> checks, int latticeOrder, bool planar = false)
     {
-        Operations = ops; Checks = checks; LatticeOrder = latticeOrder;
+        Operations = ops; Checks = checks; LatticeOrder = latticeOrder; _planar = planar;
         var seen = new HashSet<IntMatrix3>();
         var actions = new List<IntMatrix3>();
         foreach (var o in ops)
@@ -79,7 +87,44 @@ public sealed class SymmetryGroup
             }
             kept = chosen;
         }
-        return new SymmetryGroup(Close(identity, kept, points, finder), checks, points.Count, lattice.Dimension == 2);
+        return new SymmetryGroup(Close(identity, kept, points, finder), checks, points.Count, lattice.Dimension == 2) { _model = bare.Model };
+    }
+
+    /// <summary>
+    /// This group for <paramref name="bare"/>, a model of the same structure with other parameter values (the next point
+    /// of a scan): each operation is re-verified on the new Hamiltonian with its own U, which costs a few matrix products
+    /// instead of the search over every candidate. Null when the structure differs (lattice vectors, sites, orbitals, shell
+    /// groups, flavours) or any operation fails, so the caller searches afresh.
+    /// Exact even though the new model may have gained operations (inversion at a vanishing staggered potential): any
+    /// subgroup of a Hamiltonian's symmetry gives exact zone sums, since each of its orbits lies inside an orbit of the
+    /// full group, on which every summed quantity is constant; a gained operation only goes unused (a larger wedge).
+    /// </summary>
+    public SymmetryGroup? CarriedOver(BlochHamiltonian bare)
+    {
+        if (_model is not { } old || !SameStructure(old, bare.Model)) return null;
+        var finder = new SymmetryFinder(bare);
+        var checks = new List<OperationCheck>(Operations.Count);
+        foreach (var op in Operations)
+        {
+            double defect = op.Point.LatticeMatrix == IntMatrix3.Identity && !op.TimeReversal
+                ? 0 : finder.Defect(op.Point, op.TimeReversal, op.Unitary, stopAbove: SymmetryFinder.RelativeTolerance).Defect;
+            if (!(defect <= SymmetryFinder.RelativeTolerance)) return null;
+            checks.Add(new OperationCheck(op.Name, true, defect, ""));
+        }
+        return new SymmetryGroup(Operations, checks, LatticeOrder, _planar) { _model = bare.Model };
+    }
+
+    /// <summary>Same lattice vectors, sites, orbitals, shell groups and flavours: what the operations' U and k-action rest on.</summary>
+    private static bool SameStructure(BoundModel a, BoundModel b)
+    {
+        if (ReferenceEquals(a, b)) return true;
+        var la = a.Lattice; var lb = b.Lattice;
+        if (la.Kind != lb.Kind || la.Dimension != lb.Dimension || la.A1 != lb.A1 || la.A2 != lb.A2 || la.A3 != lb.A3) return false;
+        if (a.Flavours != b.Flavours || !a.Sites.SequenceEqual(b.Sites) || !a.Orbitals.SequenceEqual(b.Orbitals)) return false;
+        if (a.Shells.Count != b.Shells.Count) return false;
+        for (int i = 0; i < a.Shells.Count; i++)
+            if (a.Shells[i].Orbital != b.Shells[i].Orbital || a.Shells[i].Group != b.Shells[i].Group) return false;
+        return true;
     }
 
     /// <summary>Closure under products (products of symmetries are symmetries; each is re-verified as a guard).</summary>

@@ -154,6 +154,58 @@ public class SymmetryGroupTests(ITestOutputHelper output)
         }
     }
 
+    /// <summary>
+    /// The group of one scan point carried over to the next (<see cref="SymmetryGroup.CarriedOver"/>): the shipped Weyl
+    /// model's [111] bond distortion dt lowers zincblende -43m to 3m, so dt = 0 gains operations (grey groups of order 48
+    /// and 12; International Tables Vol. A (2016), Table 3.2.3.2). (Its staggered potential m does not change the group:
+    /// the inversion it breaks swaps the two untied shell groups, which is never used.) The dt != 0 group still holds at
+    /// dt = 0 and is kept there (a subgroup); the dt = 0 group does not hold at dt != 0 and is refused. Zone sums over the carried-over subgroup's wedge equal those over the full mesh (the plain average), and
+    /// a scan-style solve with <see cref="SolveReuse"/> equals a fresh one.
+    /// </summary>
+    [Fact]
+    public void ACarriedOverGroupIsASubgroupThatKeepsTheSums()
+    {
+        var broken = Shipped("weyl-diamond.toml");
+        var kept = Shipped("weyl-diamond.toml", new Dictionary<string, string> { ["dt"] = "0" });
+        var bareBroken = new BlochHamiltonian(broken); var bareKept = new BlochHamiltonian(kept);
+        var g1 = SymmetryGroup.Find(bareBroken); var g0 = SymmetryGroup.Find(bareKept);
+        Assert.Equal(12, g1.Order);
+        Assert.Equal(48, g0.Order);
+        var carried = g1.CarriedOver(bareKept);
+        Assert.NotNull(carried);
+        Assert.Equal(g1.Operations.Select(o => o.Name), carried!.Operations.Select(o => o.Name));
+        Assert.All(carried.Checks, c => Assert.True(c.Kept && c.Defect <= SymmetryFinder.RelativeTolerance, c.Name));
+        Assert.Null(g0.CarriedOver(bareBroken));                                           // -4 and the other -43m operations fail at dt != 0
+        Assert.Null(g1.CarriedOver(new BlochHamiltonian(Shipped("kondo-insulator-sc.toml")))); // another structure
+
+        var kmesh = new KMesh(kept.Lattice, 6, true);
+        var reduced = new MeshStateSum(bareKept, kmesh, carried, keepVectors: false);
+        var full = new MeshStateSum(bareKept, kmesh);
+        var amp = new MeanFieldAmplitudes([0.4, 0.4], [900, 900]);
+        double t = 0.3, mu = BandFilling.Compute(full.Fill(amp), kept.ElectronsPerCell, t).Mu;
+        var a = Sums(reduced.Fill(amp), mu, t); var b = Sums(full.Fill(amp), mu, t);
+        double scale = SymmetryFinder.LargestAmplitude(kept);
+        for (int i = 0; i < a.Length; i++) Assert.True(Math.Abs(a[i] - b[i]) <= 1e-12 * Math.Max(scale, Math.Abs(b[i])), $"sum {i}: {a[i]:R} vs {b[i]:R}");
+
+        // A scan-style pair of solves (dt = 0.2 t, then dt = 0 through the same reuse) against a fresh solve.
+        var settings = new SolverSettings { Temperature = 0.3, Mesh = 8, Tolerance = 1e-11 };
+        var reuse = new SolveReuse();
+        var first = new SaddlePointSolver(broken, settings, reuse).Solve();
+        var second = new SaddlePointSolver(kept, settings with { InitialGuess = first.Amplitudes }, reuse).Solve();
+        var fresh = new SaddlePointSolver(kept, settings with { InitialGuess = first.Amplitudes }).Solve();
+        Assert.Equal(1, reuse.GroupsCarriedOver);
+        Assert.True(second.Converged && fresh.Converged);
+        Assert.Equal(12, second.Symmetry!.Operations); Assert.Equal(48, fresh.Symmetry!.Operations);
+        output.WriteLine($"r {second.Groups[0].R:R} vs {fresh.Groups[0].R:R}, mu {second.Mu:R} vs {fresh.Mu:R}");
+        for (int g = 0; g < 2; g++)
+        {
+            Assert.Equal(fresh.Groups[g].R, second.Groups[g].R, 1e-9);
+            Assert.Equal(fresh.Groups[g].Lambda, second.Groups[g].Lambda, 1e-9 * scale);
+        }
+        Assert.Equal(fresh.Mu, second.Mu, 1e-9 * scale);
+        Assert.Equal(fresh.FreeEnergy, second.FreeEnergy, 1e-9 * scale);
+    }
+
     /// <summary>(N, Omega, n_f,g..., dOmega/dr_g...) of a table at fixed mu.</summary>
     private static double[] Sums(StateTable table, double mu, double t)
     {
