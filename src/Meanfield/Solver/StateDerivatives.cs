@@ -63,17 +63,7 @@ internal sealed class StateDerivatives
             int row = _fIndex[q] * n;
             for (int c = 0; c < n; c++)
             {
-                // Written out (the JIT does not inline Complex's operators here): the same operations in the same order.
-                double re = 0, im = 0;
-                for (int j = 0; j < n; j++)
-                {
-                    var vj = v[j * n + c]; double gj = scale[j];
-                    double xr = gj * vj.Real, xi = gj * vj.Imaginary;
-                    var sij = s[row + j];
-                    re += sij.Real * xr - sij.Imaginary * xi;
-                    im += sij.Imaginary * xr + sij.Real * xi;
-                }
-                _w[q * n + c] = new Complex(re, im);
+                _w[q * n + c] = ScaledRowProduct.At(s, row, v, c, n, scale);
             }
         }
         var ops = _ops.AsSpan();

@@ -23,18 +23,7 @@ internal static class StateProjection
             {
                 int i = fIndex[a], g = fGroup[a], row = i * n;
                 var vi = vectors[row + m];
-                // sg = sum_j S_ij (g_j psi_j), written out: the JIT does not inline Complex's operators into methods
-                // compiled at full optimisation straight away (same operations in the same order, so the same bits).
-                double sgRe = 0, sgIm = 0;
-                for (int j = 0; j < n; j++)
-                {
-                    var vj = vectors[j * n + m]; double gj = scale[j];
-                    double xr = gj * vj.Real, xi = gj * vj.Imaginary;
-                    var sij = scaled[row + j];
-                    sgRe += sij.Real * xr - sij.Imaginary * xi;
-                    sgIm += sij.Imaginary * xr + sij.Real * xi;
-                }
-                var sg = new Complex(sgRe, sgIm);
+                var sg = ScaledRowProduct.At(scaled, row, vectors, m, n, scale); // sum_j S_ij (g_j psi_j)
                 table.FWeight[gBase + g] += vi.Real * vi.Real + vi.Imaginary * vi.Imaginary;
                 table.EnergySlope[gBase + g] += 2 * (vi.Real * sg.Real + vi.Imaginary * sg.Imaginary);
             }
