@@ -30,10 +30,10 @@ public sealed record CurvatureRequest
     /// <exception cref="RequestError">A grid outside 2..<see cref="MaxGrid"/>, or parallel or zero sides.</exception>
     public void Validate()
     {
-        if (Grid < 2 || Grid > MaxGrid) throw new RequestError($"grid {Grid}: use 2..{MaxGrid} plaquettes per side");
+        if (Grid < 2 || Grid > MaxGrid) throw new RequestError($"--grid {Grid}: use 2..{MaxGrid} plaquettes per side");
         // The reduced-to-Cartesian map is invertible, so parallel reduced sides are parallel in k-space too.
         if (!(SideA.Cross(SideB).Norm > 1e-10 * Math.Max(SideA.Norm * SideB.Norm, 1e-300)))
-            throw new RequestError($"sides {SideA} and {SideB} are parallel or zero: the parallelogram does not cut the zone");
+            throw new RequestError($"--sides {SideA} {SideB}: the sides are parallel or zero, so the parallelogram does not cut the zone");
     }
 }
 

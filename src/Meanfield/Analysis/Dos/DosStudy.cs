@@ -26,10 +26,10 @@ public sealed record DosRequest
     /// <exception cref="RequestError">A mesh outside 2..200, a window with E2 &lt;= E1, a step or sigma not positive.</exception>
     public void Validate()
     {
-        if (Mesh < 2 || Mesh > MaxMesh) throw new RequestError($"DOS mesh {Mesh}: use 2..{MaxMesh} divisions");
-        if (WindowAroundMu is { } w && !(w.High > w.Low)) throw new RequestError($"window {w.Low} {w.High}: E2 must exceed E1");
-        if (Step is { } s && !(s > 0 && double.IsFinite(s))) throw new RequestError($"step {s}: must be positive");
-        if (GaussianSigma is { } g && !(g > 0 && double.IsFinite(g))) throw new RequestError($"gaussian sigma {g}: must be positive");
+        if (Mesh < 2 || Mesh > MaxMesh) throw new RequestError($"--dos-mesh {Mesh}: use 2..{MaxMesh} divisions");
+        if (WindowAroundMu is { } w && !(w.High > w.Low)) throw new RequestError($"--window {w.Low} {w.High}: E2 must exceed E1");
+        if (Step is { } s && !(s > 0 && double.IsFinite(s))) throw new RequestError($"--step {s}: must be positive");
+        if (GaussianSigma is { } g && !(g > 0 && double.IsFinite(g))) throw new RequestError($"--gaussian {g}: must be positive");
     }
 }
 
@@ -59,8 +59,8 @@ public static class DosStudy
         double e0 = request.WindowAroundMu is { } w ? mu + w.Low : lo, e1 = request.WindowAroundMu is { } w1 ? mu + w1.High : hi;
         double h = request.Step ?? width / DosRequest.DefaultStepsAcrossBands;
         long points = (long)Math.Floor((e1 - e0) / h + 1e-9) + 1;
-        if (points < 2) throw new RequestError($"step {h:G6}: wider than the window {e0:G6}..{e1:G6}");
-        if (points > DosRequest.MaxEnergies) throw new RequestError($"step {h:G6}: {points} energies are too many (at most {DosRequest.MaxEnergies})");
+        if (points < 2) throw new RequestError($"--step {h:G6}: wider than the window {e0:G6}..{e1:G6}");
+        if (points > DosRequest.MaxEnergies) throw new RequestError($"--step {h:G6}: {points} energies are too many (at most {DosRequest.MaxEnergies})");
         double spacing = width / (tetra.Spectrum.Bands * (double)kmesh.Count);
         int? suggest = request.GaussianSigma is null && h < spacing
             ? (int)Math.Ceiling(Math.Pow(width / (tetra.Spectrum.Bands * h), 1.0 / model.Lattice.Dimension)) : null;
