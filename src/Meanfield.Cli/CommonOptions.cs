@@ -112,23 +112,23 @@ public static class CommonOptions
         Arity = new ArgumentArity(allowAll ? 1 : 2, 2), AllowMultipleArgumentsPerToken = true,
     };
 
-    /// <summary>The window of <see cref="Window"/> in the model's unit, relative to mu; null when not given or "all".</summary>
-    /// <exception cref="UserInputException">Not two energies E1 &lt; E2 (or "all").</exception>
-    public static (double Low, double High)? ParseWindow(string[]? given, EnergyUnit unit, string option = "--window") => given switch
-    {
-        null or [] or ["all"] => null,
-        [var a, var b] when ParseEnergy(a, unit, option) is var lo && ParseEnergy(b, unit, option) is var hi && hi > lo => (lo, hi),
-        _ => throw new UserInputException($"{option} {string.Join(" ", given)}: give two energies E1 < E2 relative to mu (such as -20 20, or -20meV 20meV)"),
-    };
+    /// <summary>The window of <see cref="Window"/> in the model's unit, relative to mu; null when not given (or "all", when <paramref name="allowAll"/>).</summary>
+    /// <exception cref="UserInputException">Not two energies E1 &lt; E2 (or "all" where allowed).</exception>
+    public static (double Low, double High)? ParseWindow(string[]? given, EnergyUnit unit, bool allowAll = false, string option = "--window") =>
+        Pair(given, allowAll ? "all" : null, t => ParseEnergy(t, unit, option), option, "two energies E1 < E2 relative to mu (such as -20 20, or -20meV 20meV)");
 
     /// <summary>Two temperatures T1 &lt; T2 (0.1K 2K; bare numbers in the model's unit), in the model's unit; null when not given or "auto".</summary>
     /// <exception cref="UserInputException">Not two temperatures T1 &lt; T2 (or "auto").</exception>
-    public static (double Low, double High)? ParseTemperatureWindow(string[]? given, EnergyUnit unit, string option) => given switch
+    public static (double Low, double High)? ParseTemperatureWindow(string[]? given, EnergyUnit unit, string option) =>
+        Pair(given, "auto", t => ParseTemperature(t, unit, option), option, "two temperatures T1 < T2 (such as 0.1K 2K)");
+
+    // Two values read by one parser, ascending; nothing or the one keyword means "not given".
+    private static (double Low, double High)? Pair(string[]? given, string? keyword, Func<string, double> read, string option, string expected)
     {
-        null or [] or ["auto"] => null,
-        [var a, var b] when ParseTemperature(a, unit, option) is var lo && ParseTemperature(b, unit, option) is var hi && hi > lo => (lo, hi),
-        _ => throw new UserInputException($"{option} {string.Join(" ", given)}: give two temperatures T1 < T2 (such as 0.1K 2K), or auto"),
-    };
+        if (given is null or [] || (keyword is not null && given is [var only] && only == keyword)) return null;
+        if (given is [var a, var b] && read(a) is var lo && read(b) is var hi && hi > lo) return (lo, hi);
+        throw new UserInputException($"{option} {string.Join(" ", given)}: give {expected}{(keyword is null ? "" : ", or " + keyword)}");
+    }
 
     /// <summary>An energy option ("-20", "-20meV", "0.02 eV"; a bare number in the model's unit) in the model's unit.</summary>
     public static double ParseEnergy(string text, EnergyUnit unit, string option)

@@ -35,7 +35,7 @@ public static class BandsCommand
             BandTableWriter.Write(bands, outPath, ResultProvenance.Of(src), src.Mu);
             var picture = CommonOptions.PictureBeside(outPath);
             var title = $"{src.Model.Name}: {(src.Origin == Solutions.SolutionOrigin.BareModel ? "bare bands" : "renormalized bands")}";
-            var win = CommonOptions.ParseWindow(parse.GetValue(window), src.Model.Unit);
+            var win = CommonOptions.ParseWindow(parse.GetValue(window), src.Model.Unit, allowAll: true);
             if (parse.GetValue(window) is ["all"]) { var (lo, hi) = bands.EnergyRange(); win = (lo - src.Mu, hi - src.Mu); }
             if (picture is not null) BandPlot.Save(bands, picture, title, src.Model.Unit, src.Mu, colourByCorrelatedWeight: !parse.GetValue(weight) && src.Model.Shells.Count > 0, window: win);
             o.WriteLine($"{CommonOptions.Wrote(outPath, picture)} ({bands.Energies().GetLength(0)} k-points, {bands.Energies().GetLength(1)} bands)");

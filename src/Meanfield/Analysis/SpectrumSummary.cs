@@ -60,14 +60,15 @@ public static class SpectrumSummary
         // One pass over the solution's own mesh serves the DOS at mu, the gaps and the node seeds: the solve's final
         // pass when it was kept, otherwise a fresh one over the irreducible wedge (energies and kind weights are the
         // same across an orbit; tetrahedra read every corner through the orbit map).
-        var pass = new Lazy<ZonePass>(() => solution.FinalPass ?? PassDos.Diagonalise(solution.Hamiltonian,
-            new global::Meanfield.Symmetry.IrreducibleMesh(solution.Mesh, global::Meanfield.Symmetry.SymmetryGroup.Find(new Bloch.BlochHamiltonian(model)))));
+        var wedge = new Lazy<global::Meanfield.Symmetry.IrreducibleMesh>(() => solution.FinalPass?.Wedge
+            ?? new global::Meanfield.Symmetry.IrreducibleMesh(solution.Mesh, global::Meanfield.Symmetry.SymmetryGroup.Find(new Bloch.BlochHamiltonian(model))));
+        var pass = new Lazy<ZonePass>(() => solution.FinalPass ?? PassDos.Diagonalise(solution.Hamiltonian, wedge.Value));
         DosValue? dos = null;
         // Decoupled f shells are a flat level pinned at mu: a delta function, not a band, so the DOS at mu is the
         // conduction part alone and the correlated part is not reported (free moments carry entropy, not a gamma).
         // Tetrahedra cannot take it from the solution's bands, where the flat level crosses the conduction band and
         // band indices swap character inside a cell; the conduction bands alone are diagonalised instead.
-        if (solution.Decoupled) { var c = ConductionDosAt(model, solution.Mesh, mu); dos = new DosValue(c, double.NaN, c); }
+        if (solution.Decoupled) { var c = ConductionDosAt(model, wedge.Value, mu); dos = new DosValue(c, double.NaN, c); }
         else if (req.Dos) dos = PassDos.AtEnergy(pass.Value, mu);
         GapReport? gaps = null;
         NodeSearchResult? nodes = null;
@@ -114,13 +115,11 @@ public static class SpectrumSummary
     /// The conduction DOS at <paramref name="energy"/> of the r = 0 bands: every f level moved far above the spectrum
     /// (the shells decouple exactly at r = 0), so band indices near the energy are conduction bands only.
     /// </summary>
-    private static double ConductionDosAt(Binding.BoundModel model, Lattices.KMesh mesh, double energy)
+    private static double ConductionDosAt(Binding.BoundModel model, global::Meanfield.Symmetry.IrreducibleMesh wedge, double energy)
     {
-        var bare = new Bloch.BlochHamiltonian(model);
         int groups = model.ShellGroups().Count;
         double far = DecoupledLevelShift * (1 + model.Shells.Max(s => Math.Abs(s.Level)) + Math.Abs(energy));
-        var h = new Renormalization.RenormalizedHamiltonian(bare, new Renormalization.MeanFieldAmplitudes(new double[groups], Enumerable.Repeat(far, groups).ToArray()));
-        var wedge = new global::Meanfield.Symmetry.IrreducibleMesh(mesh, global::Meanfield.Symmetry.SymmetryGroup.Find(bare));
+        var h = new Renormalization.RenormalizedHamiltonian(new Bloch.BlochHamiltonian(model), new Renormalization.MeanFieldAmplitudes(new double[groups], Enumerable.Repeat(far, groups).ToArray()));
         return PassDos.AtEnergy(PassDos.Diagonalise(h, wedge), energy).Conduction;
     }
 

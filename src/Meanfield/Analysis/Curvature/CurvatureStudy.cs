@@ -65,7 +65,7 @@ public static class CurvatureStudy
             throw new RequestError($"{model.Name} is two-dimensional: the third reduced component of the corner and sides must be 0");
         int occ = solution.OccupiedBands;
         var map = BerryCurvature.Compute(solution.Hamiltonian, o, a, b, request.Grid, request.Grid, occ);
-        var nodes = SpectrumSummary.Compute(solution, new SpectrumRequest { SearchMesh = request.SearchMesh, Dos = false, Heat = false }).Nodes!;
+        var nodes = SpectrumSummary.Compute(solution, new SpectrumRequest { SearchMesh = request.SearchMesh, Dos = false, Heat = false, Topology = false }).Nodes!;
         double bMin = Math.Min(model.Lattice.B1.Norm, model.Lattice.B2.Norm);
         var inPlane = PlaneNodes.Find(model.Lattice, o, a, b, nodes.Nodes, CurvatureRequest.InPlaneTolerance * bMin);
         return new CurvatureStudyResult(map, inPlane, occ, nodes.FermiSurfaceAwayFromNodes);
