@@ -44,7 +44,9 @@ public static class DosCommand
             var (u, fu, at) = (unit.Symbol(), src.Model.FormulaUnitsPerCell, study.AtMu);
             var inv = CultureInfo.InvariantCulture;
             o.WriteLine(string.Create(inv, $"mu = {mu:G8} {u} ({SolutionDocument.RuleName(src.MuRule)}, {src.OriginText})"));
-            o.WriteLine(string.Create(inv, $"DOS at mu: total {at.Total:G6}, correlated {at.Correlated:G6} states/{u} per cell; total {at.Total / fu:G6}, correlated {at.Correlated / fu:G6} per formula unit"));
+            o.WriteLine(double.IsFinite(at.Correlated)
+                ? string.Create(inv, $"DOS at mu: total {at.Total:G6}, correlated {at.Correlated:G6} states/{u} per cell; total {at.Total / fu:G6}, correlated {at.Correlated / fu:G6} per formula unit")
+                : string.Create(inv, $"DOS at mu: {at.Total:G6} states/{u} per cell, {at.Total / fu:G6} per formula unit, conduction only (r = 0: the f shells are free moments, a flat level at mu, not a band)"));
             o.WriteLine($"{CommonOptions.Wrote(outPath, picture)} ({study.Dos.Energies.Length} energies, {study.Dos.Method})");
             return ExitCodes.Success;
         });

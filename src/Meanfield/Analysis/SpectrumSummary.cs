@@ -66,9 +66,7 @@ public static class SpectrumSummary
         DosValue? dos = null;
         // Decoupled f shells are a flat level pinned at mu: a delta function, not a band, so the DOS at mu is the
         // conduction part alone and the correlated part is not reported (free moments carry entropy, not a gamma).
-        // Tetrahedra cannot take it from the solution's bands, where the flat level crosses the conduction band and
-        // band indices swap character inside a cell; the conduction bands alone are diagonalised instead.
-        if (solution.Decoupled) { var c = ConductionDosAt(model, wedge.Value, mu); dos = new DosValue(c, double.NaN, c); }
+        if (solution.Decoupled) { var c = PassDos.DecoupledConductionAt(model, wedge.Value, mu); dos = new DosValue(c, double.NaN, c); }
         else if (req.Dos) dos = PassDos.AtEnergy(pass.Value, mu);
         GapReport? gaps = null;
         NodeSearchResult? nodes = null;
@@ -111,20 +109,6 @@ public static class SpectrumSummary
     }
 
     // Gaps on the solution's mesh, with the refined nodes included: a touching between mesh points closes the gap.
-    /// <summary>
-    /// The conduction DOS at <paramref name="energy"/> of the r = 0 bands: every f level moved far above the spectrum
-    /// (the shells decouple exactly at r = 0), so band indices near the energy are conduction bands only.
-    /// </summary>
-    private static double ConductionDosAt(Binding.BoundModel model, global::Meanfield.Symmetry.IrreducibleMesh wedge, double energy)
-    {
-        int groups = model.ShellGroups().Count;
-        double far = DecoupledLevelShift * (1 + model.Shells.Max(s => Math.Abs(s.Level)) + Math.Abs(energy));
-        var h = new Renormalization.RenormalizedHamiltonian(new Bloch.BlochHamiltonian(model), new Renormalization.MeanFieldAmplitudes(new double[groups], Enumerable.Repeat(far, groups).ToArray()));
-        return PassDos.AtEnergy(PassDos.Diagonalise(h, wedge), energy).Conduction;
-    }
-
-    /// <summary>How far above the spectrum (relative to its largest level) the decoupled f levels are moved for <see cref="ConductionDosAt"/>.</summary>
-    private const double DecoupledLevelShift = 1e6;
 
     private static GapReport Gaps(ZonePass pass, int occ, NodeSearchResult nodes)
     {

@@ -35,7 +35,7 @@ public sealed record DosRequest
 
 /// <summary>A tabulated DOS with its value at mu and what the table can and cannot resolve.</summary>
 /// <param name="Dos">Total, kind- and site-resolved DOS on the energy grid.</param>
-/// <param name="AtMu">The DOS at the solution's mu (tetrahedra, Bloechl's corrections).</param>
+/// <param name="AtMu">The DOS at the solution's mu (tetrahedra, Bloechl's corrections); for a decoupled solution the conduction part, with Correlated NaN (free moments, not a band).</param>
 /// <param name="Mesh">The tetrahedron mesh.</param>
 /// <param name="LevelSpacing">Mean level spacing of that mesh: band range / (bands x k-points).</param>
 /// <param name="SuggestedMesh">When the step is finer than <paramref name="LevelSpacing"/> (tetrahedra only): a mesh that resolves it; null otherwise.</param>
@@ -69,6 +69,14 @@ public static class DosStudy
             Points = (int)points, Minimum = e0, Maximum = e0 + (points - 1) * h,
             Method = request.GaussianSigma is null ? DosMethod.Tetrahedron : DosMethod.Gaussian, Sigma = request.GaussianSigma ?? 0,
         });
-        return new DosStudyResult(dos, tetra.DosAtEnergy(mu), kmesh, spacing, suggest);
+        // Free moments (r = 0) are a flat level at mu, not a band: the DOS at mu is the conduction part, as in the digest.
+        var atMu = tetra.DosAtEnergy(mu);
+        if (solution.Decoupled)
+        {
+            var wedge = new global::Meanfield.Symmetry.IrreducibleMesh(kmesh, global::Meanfield.Symmetry.SymmetryGroup.Find(new Bloch.BlochHamiltonian(model)));
+            double c = PassDos.DecoupledConductionAt(model, wedge, mu);
+            atMu = new DosValue(c, double.NaN, c);
+        }
+        return new DosStudyResult(dos, atMu, kmesh, spacing, suggest);
     }
 }

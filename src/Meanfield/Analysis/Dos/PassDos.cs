@@ -15,6 +15,23 @@ namespace Meanfield.Analysis.Dos;
 /// </summary>
 public static class PassDos
 {
+    /// <summary>
+    /// The conduction DOS at <paramref name="energy"/> of a decoupled (r = 0) solution: every f level moved far above
+    /// the spectrum (the shells decouple exactly at r = 0), so the bands near the energy are conduction bands only.
+    /// Tetrahedra cannot take it from the solution's own bands, where the flat f level at mu crosses the conduction band
+    /// and band indices swap character inside a cell. The one rule for the DOS at mu of free moments (digest and `dos`).
+    /// </summary>
+    public static double DecoupledConductionAt(BoundModel model, IrreducibleMesh wedge, double energy)
+    {
+        int groups = model.ShellGroups().Count;
+        double far = DecoupledLevelShift * (1 + model.Shells.Max(s => Math.Abs(s.Level)) + Math.Abs(energy));
+        var h = new Renormalization.RenormalizedHamiltonian(new BlochHamiltonian(model), new Renormalization.MeanFieldAmplitudes(new double[groups], Enumerable.Repeat(far, groups).ToArray()));
+        return AtEnergy(Diagonalise(h, wedge), energy).Conduction;
+    }
+
+    /// <summary>How far above the spectrum (relative to its largest level) <see cref="DecoupledConductionAt"/> moves the f levels.</summary>
+    private const double DecoupledLevelShift = 1e6;
+
     /// <summary>Total, correlated and conduction DOS at <paramref name="energy"/> (states per cell per energy unit).</summary>
     public static DosValue AtEnergy(ZonePass pass, double energy, bool bloechl = true)
     {

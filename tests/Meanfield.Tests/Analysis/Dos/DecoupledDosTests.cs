@@ -30,5 +30,9 @@ public class DecoupledDosTests
         Assert.Null(columns.DosFermiCorrelated);
         double perSpin = columns.DosFermiTotal!.Value / 2 * t;
         Assert.InRange(perSpin, 0.143 * 0.97, 0.143 * 1.03);
+        // The `dos` entry point reads the DOS at mu by the same rule, on its own (Gamma-centred) mesh.
+        var study = Meanfield.Analysis.Dos.DosStudy.Run(solution, new Meanfield.Analysis.Dos.DosRequest { Mesh = mesh });
+        Assert.True(double.IsNaN(study.AtMu.Correlated));
+        Assert.InRange(study.AtMu.Total / 2 * t, 0.143 * 0.97, 0.143 * 1.03);
     }
 }
