@@ -6,9 +6,10 @@ using Meanfield.Units;
 namespace Meanfield.Cli.Commands;
 
 /// <summary>
-/// `meanfield bench [MODEL] [--meshes 24,36,48] [--scan [--scan-file F] [--scan-size N] [--scan-mesh M]]`: full solves
-/// and their digest per mesh against the floor of a bare diagonalisation pass, and optionally a shipped scan resampled
-/// to N x N points (timed, with the time of a 32 x 32 grid extrapolated).
+/// `meanfield bench [MODEL] [--meshes 24,36,48] [--process-runs 9] [--scan [--scan-file F] [--scan-size N] [--scan-mesh M]]`:
+/// full solves and their digest per mesh against the floor of a bare diagonalisation pass, `solve` at the largest mesh
+/// timed as a fresh process, finite against infinite U, and optionally a shipped scan resampled to N x N points (timed,
+/// with the time of a 32 x 32 grid extrapolated).
 /// </summary>
 public static class BenchCommand
 {
@@ -23,10 +24,11 @@ public static class BenchCommand
         var scanMesh = new Option<int>("--scan-mesh") { Description = "Mesh of the benchmark scan", DefaultValueFactory = _ => 24 };
         var cold = new Option<int>("--cold-subset") { Description = "Scan points re-solved from a cold start for comparison", DefaultValueFactory = _ => 16 };
         var skipSolve = new Option<bool>("--no-solve") { Description = "Skip the per-mesh solve benchmark" };
+        var runs = new Option<int>("--process-runs") { Description = "Times `solve` at the largest mesh as a fresh process this many times (start-up and JIT included); 0 skips it", DefaultValueFactory = _ => 9 };
         var finiteU = new Option<string?>("--finite-u") { Description = "U of the finite-U against infinite-U comparison per mesh (default: the model's U, else 4 x its largest energy); \"off\" skips it" };
         var command = new Command("bench", "Measure solver speed: solves and digests per mesh against a bare diagonalisation pass, finite against infinite U, and a scan")
         {
-            model, meshes, temperature, scan, file, size, scanMesh, cold, skipSolve, finiteU,
+            model, meshes, temperature, scan, file, size, scanMesh, cold, skipSolve, runs, finiteU,
         };
         command.SetAction(async (parse, ct) =>
         {
@@ -47,6 +49,9 @@ public static class BenchCommand
                     var r = SolveBenchmark.Run(bound, settings with { Mesh = m }, ct);
                     o.WriteLine(Line($"{r.Mesh,5} {r.KPoints,9} {r.WedgePoints,7} {r.ReductionFactor,6:F2} {r.SymmetryOrder,5} {r.SolveSeconds,8:F3} {r.SolveCpuSeconds,6:F2} {r.Iterations,4} {r.ZonePasses,4} {r.CoarsePasses,6} {r.DigestSeconds,8:F3} {r.PassSeconds,8:F4} {r.BarePassSeconds,9:F4} {r.BareWedgeSeconds,10:F4} {r.PassSeconds / r.BareWedgeSeconds,9:F2} {r.JacobianSeconds,7:F4} {r.BytesPerPass,10} {r.PeakWorkingSetBytes / 1048576.0,7:F0} {(r.Converged ? r.Phase ?? "-" : "NOT CONVERGED")}"));
                 }
+                int count = parse.GetValue(runs) is var c and >= 0 and <= 1000 ? c : throw new UserInputException($"--process-runs {parse.GetValue(runs)}: give a count from 0 to 1000");
+                if (count > 0)
+                    o.WriteLine(SelfCommand.TimeSolve(parse.GetValue(model)!, list.Max(), parse.GetValue(temperature), count, ct).Describe());
                 if (parse.GetValue(finiteU) is not "off" and var uText)
                 {
                     double? u = uText is null ? null : CommonOptions.ParseEnergy(uText, bound.Unit, "--finite-u");
@@ -60,12 +65,7 @@ public static class BenchCommand
                 var definition = ScanBenchmark.Resampled(parse.GetValue(file)!, n, parse.GetValue(scanMesh));
                 o.WriteLine($"scan: {parse.GetValue(file)} resampled to {n} x {n} points, mesh {parse.GetValue(scanMesh)}, node and DOS columns, cold subset {parse.GetValue(cold)} ...");
                 var r = await ScanBenchmark.RunAsync(definition, parse.GetValue(cold), null, ct);
-                o.WriteLine(Line($"  points                       {r.Points} ({r.NonConverged} not converged): {string.Join(", ", r.Phases.Select(p => $"{p.Value} {p.Key}"))}"));
-                o.WriteLine(Line($"  wall time                    {r.WallSeconds:F1} s ({r.SecondsPerPoint:F3} s per point, {r.ZonePasses} zone passes); 32 x 32 at this rate: {r.Extrapolated(1024):F0} s"));
-                o.WriteLine(Line($"  digest (phase, nodes, DOS)   {r.DigestSeconds:F1} s summed over points ({r.DigestSeconds / r.Points:F3} s per point)"));
-                o.WriteLine(Line($"  diagonalisation share        {100 * r.DiagonalisationFraction:F0}% of wall x cores"));
-                o.WriteLine(Line($"  mean iterations (warm)       {r.MeanIterationsWarm:F2} over the {100 * r.WarmShare:F0}% warm-started points"));
-                o.WriteLine(Line($"  subset of {r.ColdSubset}: in scan       {r.MeanIterationsWarmSubset:F2} iterations; cold {r.MeanIterationsColdSubset:F2} iterations ({r.ColdSubsetSeconds:F1} s)"));
+                foreach (var line in r.Describe()) o.WriteLine(line);
             }
             return ExitCodes.Success;
         });

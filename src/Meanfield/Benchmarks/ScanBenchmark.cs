@@ -29,6 +29,19 @@ public sealed record ScanBenchmarkResult(int Points, int Mesh, double WallSecond
     public double SecondsPerPoint => WallSeconds / Math.Max(1, Points);
     /// <summary>The wall time a grid of <paramref name="points"/> would take at this rate (s): points cost alike on average.</summary>
     public double Extrapolated(int points) => SecondsPerPoint * points;
+
+    /// <summary>The lines of the benchmark report: points and phases, wall time (and a 32 x 32 grid at this rate), digest
+    /// time, diagonalisation share, and iterations warm against cold.</summary>
+    public IEnumerable<string> Describe()
+    {
+        var c = System.Globalization.CultureInfo.InvariantCulture;
+        yield return string.Create(c, $"  points                       {Points} ({NonConverged} not converged): {string.Join(", ", Phases.Select(p => $"{p.Value} {p.Key}"))}");
+        yield return string.Create(c, $"  wall time                    {WallSeconds:F1} s ({SecondsPerPoint:F3} s per point, {ZonePasses} zone passes); 32 x 32 at this rate: {Extrapolated(1024):F0} s");
+        yield return string.Create(c, $"  digest (phase, nodes, DOS)   {DigestSeconds:F1} s summed over points ({DigestSeconds / Math.Max(1, Points):F3} s per point)");
+        yield return string.Create(c, $"  diagonalisation share        {100 * DiagonalisationFraction:F0}% of wall x cores");
+        yield return string.Create(c, $"  mean iterations (warm)       {MeanIterationsWarm:F2} over the {100 * WarmShare:F0}% warm-started points");
+        yield return string.Create(c, $"  subset of {ColdSubset}: in scan       {MeanIterationsWarmSubset:F2} iterations; cold {MeanIterationsColdSubset:F2} iterations ({ColdSubsetSeconds:F1} s)");
+    }
 }
 
 /// <summary>Runs a scan grid with the real solver, then re-solves a spread subset cold (library side of `meanfield bench --scan`).</summary>

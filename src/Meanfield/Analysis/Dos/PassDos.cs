@@ -50,12 +50,14 @@ public static class PassDos
             for (int w = 0; w < pass.Wedge.Count; w++) { lo = Math.Min(lo, e[w * bands + n]); hi = Math.Max(hi, e[w * bands + n]); }
             if (lo < energy && hi > energy) active.Add(n);
         }
-        double total = 0, correlated = 0;
         if (active.Count == 0) return new DosValue(0, 0, 0);
         var bandList = active.ToArray();
-        var gate = new object();
-        Parallel.For(0, mesh.N1, () => new Local(), (i1, _, loc) =>
+        // One partial sum per slice i1, added in slice order: the value does not depend on which thread ran which slice.
+        var sliceTotal = new double[mesh.N1];
+        var sliceCorrelated = new double[mesh.N1];
+        Parallel.For(0, mesh.N1, i1 =>
         {
+            double sumTotal = 0, sumCorrelated = 0;
             Span<int> row = stackalloc int[8];
             Span<double> ce = stackalloc double[8], te = stackalloc double[4], g = stackalloc double[4];
             Span<int> order = stackalloc int[4];
@@ -73,13 +75,15 @@ public static class PassDos
                             for (int c = 0; c < nc; c++) { te[c] = ce[pattern[s * nc + c]]; order[c] = pattern[s * nc + c]; }
                             Sort(te, order, nc);
                             double d = nc == 4 ? SimplexKernel.TetraCornerWeights(te, energy, g, bloechl) : SimplexKernel.TriangleCornerWeights(te, energy, g);
-                            loc.Total += weight * d;
-                            for (int c = 0; c < nc; c++) loc.Correlated += weight * g[c] * f[row[order[c]] * bands + n];
+                            sumTotal += weight * d;
+                            for (int c = 0; c < nc; c++) sumCorrelated += weight * g[c] * f[row[order[c]] * bands + n];
                         }
                     }
                 }
-            return loc;
-        }, loc => { lock (gate) { total += loc.Total; correlated += loc.Correlated; } });
+            sliceTotal[i1] = sumTotal; sliceCorrelated[i1] = sumCorrelated;
+        });
+        double total = 0, correlated = 0;
+        for (int i1 = 0; i1 < mesh.N1; i1++) { total += sliceTotal[i1]; correlated += sliceCorrelated[i1]; }
         return new DosValue(total, correlated, total - correlated);
     }
 
@@ -120,10 +124,5 @@ public static class PassDos
             while (j >= 0 && e[j] > v) { e[j + 1] = e[j]; order[j + 1] = order[j]; j--; }
             e[j + 1] = v; order[j + 1] = o;
         }
-    }
-
-    private sealed class Local
-    {
-        public double Total, Correlated;
     }
 }

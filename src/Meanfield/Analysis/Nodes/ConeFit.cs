@@ -1,6 +1,6 @@
-using MathNet.Numerics.LinearAlgebra;
 using Meanfield.Analysis.Dos;
 using Meanfield.Lattices;
+using Meanfield.Numerics;
 
 namespace Meanfield.Analysis.Nodes;
 
@@ -11,6 +11,12 @@ namespace Meanfield.Analysis.Nodes;
 /// </summary>
 public sealed record ConeFit(double[,] Velocity, double[] Singular, double DetVelocity, Vec3 Tilt, double TiltRatio)
 {
+    /// <summary>
+    /// A cone whose velocity determinant is below this fraction of (largest velocity)^dimension is flat in some
+    /// direction (a line or plane node, or a quadratic touching): its tilt ratio is reported as infinite.
+    /// </summary>
+    public const double FlatConeFraction = 1e-14;
+
     /// <summary>Type II when the tilt overwhelms the cone in some direction: w^T G^-1 w &gt; 1.</summary>
     public bool IsTypeII => TiltRatio > 1;
 
@@ -32,23 +38,34 @@ public sealed record ConeFit(double[,] Velocity, double[] Singular, double DetVe
                 // c^2 = (G_ii + G_jj + 2 G_ij) / 2 along (e_i + e_j)/sqrt 2.
                 g[i, j] = g[j, i] = c * c - 0.5 * (g[i, i] + g[j, j]);
             }
-        var G = Matrix<double>.Build.DenseOfArray(g).SubMatrix(0, dimension, 0, dimension);
-        var evd = G.Evd(Symmetricity.Symmetric);
+        // G = sum_a s_a^2 u_a u_a^T: the velocity matrix is its square root sum_a s_a u_a u_a^T (real for a real symmetric
+        // G; the eigensolver's vector phases cancel in u u^H).
+        var gm = new System.Numerics.Complex[dimension * dimension];
+        var gr = new double[dimension * dimension];
+        for (int a = 0; a < dimension; a++) for (int b = 0; b < dimension; b++) { gm[a * dimension + b] = g[a, b]; gr[a * dimension + b] = g[a, b]; }
+        var values = new double[dimension];
+        var vectors = new System.Numerics.Complex[dimension * dimension];
+        new HouseholderQlEigensolver(dimension).Solve(gm, values, vectors);
         var s = new double[dimension];
-        var root = Matrix<double>.Build.Dense(dimension, dimension);
-        for (int a = 0; a < dimension; a++)
+        var velocity = new double[3, 3];
+        for (int m = 0; m < dimension; m++)
         {
-            s[a] = Math.Sqrt(Math.Max(evd.EigenValues[a].Real, 0));
-            var vec = evd.EigenVectors.Column(a);
-            root += s[a] * vec.OuterProduct(vec);
+            s[m] = Math.Sqrt(Math.Max(values[m], 0));
+            for (int a = 0; a < dimension; a++)
+                for (int b = 0; b < dimension; b++)
+                    velocity[a, b] += s[m] * (vectors[a * dimension + m] * System.Numerics.Complex.Conjugate(vectors[b * dimension + m])).Real;
         }
         Array.Sort(s); Array.Reverse(s);
         double det = 1;
         foreach (var x in s) det *= x;
-        var velocity = new double[3, 3];
-        for (int a = 0; a < dimension; a++) for (int b = 0; b < dimension; b++) velocity[a, b] = root[a, b];
-        var wv = Vector<double>.Build.DenseOfArray(tilt[..dimension]);
-        double ratio = det > 1e-14 * Math.Pow(s[0], dimension) ? Math.Sqrt(Math.Max(wv * G.Solve(wv), 0)) : double.PositiveInfinity;
+        // Tilt ratio sqrt(w^T G^-1 w); infinite for a cone that is flat in some direction.
+        double ratio = double.PositiveInfinity;
+        if (det > FlatConeFraction * Math.Pow(s[0], dimension) && DenseSolve.TrySolve(gr, tilt[..dimension], dimension, out var gw))
+        {
+            double q = 0;
+            for (int a = 0; a < dimension; a++) q += tilt[a] * gw[a];
+            ratio = Math.Sqrt(Math.Max(q, 0));
+        }
         return new ConeFit(velocity, s, det, new Vec3(tilt[0], tilt[1], tilt[2]), ratio);
     }
 
