@@ -46,6 +46,7 @@ public static class ProcessBenchmark
     /// <param name="cancellation">Stops between runs.</param>
     /// <exception cref="ArgumentOutOfRangeException"><paramref name="runs"/> is outside 1..1000.</exception>
     /// <exception cref="System.ComponentModel.Win32Exception">The program cannot be started.</exception>
+    /// <exception cref="InvalidOperationException">The start returned no process.</exception>
     /// <exception cref="OperationCanceledException">Cancelled.</exception>
     public static ProcessTiming Run(string executable, IReadOnlyList<string> arguments, int runs, string description,
                                     CancellationToken cancellation = default)

@@ -41,8 +41,7 @@ public sealed record ConeFit(double[,] Velocity, double[] Singular, double DetVe
         // G = sum_a s_a^2 u_a u_a^T: the velocity matrix is its square root sum_a s_a u_a u_a^T (real for a real symmetric
         // G; the eigensolver's vector phases cancel in u u^H).
         var gm = new System.Numerics.Complex[dimension * dimension];
-        var gr = new double[dimension * dimension];
-        for (int a = 0; a < dimension; a++) for (int b = 0; b < dimension; b++) { gm[a * dimension + b] = g[a, b]; gr[a * dimension + b] = g[a, b]; }
+        for (int a = 0; a < dimension; a++) for (int b = 0; b < dimension; b++) gm[a * dimension + b] = g[a, b];
         var values = new double[dimension];
         var vectors = new System.Numerics.Complex[dimension * dimension];
         new HouseholderQlEigensolver(dimension).Solve(gm, values, vectors);
@@ -58,12 +57,18 @@ public sealed record ConeFit(double[,] Velocity, double[] Singular, double DetVe
         Array.Sort(s); Array.Reverse(s);
         double det = 1;
         foreach (var x in s) det *= x;
-        // Tilt ratio sqrt(w^T G^-1 w); infinite for a cone that is flat in some direction.
+        // Tilt ratio sqrt(w^T G^-1 w) = sqrt(sum_m |u_m^H w|^2 / s_m^2), from the same decomposition; infinite for a cone
+        // that is flat in some direction (then some s_m^2 <= 0 and det = 0).
         double ratio = double.PositiveInfinity;
-        if (det > FlatConeFraction * Math.Pow(s[0], dimension) && DenseSolve.TrySolve(gr, tilt[..dimension], dimension, out var gw))
+        if (det > FlatConeFraction * Math.Pow(s[0], dimension))
         {
             double q = 0;
-            for (int a = 0; a < dimension; a++) q += tilt[a] * gw[a];
+            for (int m = 0; m < dimension; m++)
+            {
+                System.Numerics.Complex projection = 0;
+                for (int a = 0; a < dimension; a++) projection += System.Numerics.Complex.Conjugate(vectors[a * dimension + m]) * tilt[a];
+                q += (projection * System.Numerics.Complex.Conjugate(projection)).Real / values[m];
+            }
             ratio = Math.Sqrt(Math.Max(q, 0));
         }
         return new ConeFit(velocity, s, det, new Vec3(tilt[0], tilt[1], tilt[2]), ratio);
